@@ -5,3 +5,4 @@ export * from "./sheets";
 export * from "./audit";
 export * from "./uploads";
 export * from "./mail";
+export * from "./tokens";

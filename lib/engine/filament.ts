@@ -357,20 +357,23 @@ export function solveFilaments(filaments: FilamentConductor[], opts: FilamentSol
 // Meshing
 // ---------------------------------------------------------------------------------
 
+/** Default grading toward conductor surfaces (convergence study in tests/engine/filament.test.ts). */
+export const DEFAULT_GRADING = 0.85;
+
 /**
  * Cell boundaries on [0, 1] graded toward both ends: a blend of uniform spacing and
  * Chebyshev–Lobatto points, u_k = (1 − g)·k/n + g·(1 − cos(πk/n))/2. Current crowds
  * to the surfaces of a conductor, so smaller cells there (common practice in filament
  * and finite-element meshing).
  */
-export function gradedDivisions(n: number, grading = 0.6): number[] {
+export function gradedDivisions(n: number, grading = DEFAULT_GRADING): number[] {
   const out: number[] = [];
   for (let k = 0; k <= n; k++) out.push((1 - grading) * (k / n) + (grading * (1 - Math.cos((Math.PI * k) / n))) / 2);
   return out;
 }
 
 /** Cuts a rectangle into nx × ny graded filaments. */
-export function meshRectangle(r: Rect, nx: number, ny: number, grading = 0.6): Rect[] {
+export function meshRectangle(r: Rect, nx: number, ny: number, grading = DEFAULT_GRADING): Rect[] {
   const ux = gradedDivisions(nx, grading);
   const uy = gradedDivisions(ny, grading);
   const out: Rect[] = [];
@@ -401,7 +404,7 @@ export function barMeshCounts(width_m: number, thickness_m: number, filamentsPer
 // ---------------------------------------------------------------------------------
 
 /** Default filaments per bar; see tests/engine/filament.test.ts for the convergence study behind it. */
-export const DEFAULT_FILAMENTS_PER_BAR = 60;
+export const DEFAULT_FILAMENTS_PER_BAR = 40;
 
 export interface BarArrangementAcOptions {
   filamentsPerBar?: number;
