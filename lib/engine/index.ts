@@ -1,0 +1,59 @@
+/**
+ * The engine's calculation kinds: one zod input schema and one pure function each.
+ * Forms, server actions, the JSON API, the CLI and the web worker all go through here.
+ */
+import type { z } from "zod";
+import { fieldErrors } from "./core/schema";
+import { EngineError, ENGINE_VERSION, type CalcResult } from "./core/result";
+import { calcResistance, resistanceInputSchema } from "./resistance";
+import { calcFaultWithstand, faultWithstandSchema } from "./short-circuit";
+import { calcEnclosureHeat, enclosureHeatSchema } from "./enclosure-heat";
+import { calcBusbarRating, busbarRatingSchema } from "./busbar-thermal";
+import { calcBusbarSizing, busbarSizingSchema } from "./busbar-sizing";
+
+export { ENGINE_VERSION };
+export type { CalcResult };
+
+export interface CalcKind {
+  kind: string;
+  title: string;
+  schema: z.ZodType;
+  run: (input: never) => CalcResult<unknown>;
+}
+
+function kind<S extends z.ZodType>(kind: string, title: string, schema: S, run: (input: z.output<S>) => CalcResult<unknown>): CalcKind {
+  return { kind, title, schema, run: run as (input: never) => CalcResult<unknown> };
+}
+
+export const CALC_KINDS = {
+  resistance: kind("resistance", "Conductor resistance, DC and AC", resistanceInputSchema, (i) => calcResistance(i)),
+  "busbar-rating": kind("busbar-rating", "Busbar temperature and rating (heat balance)", busbarRatingSchema, (i) => calcBusbarRating(i as never)),
+  "busbar-sizing": kind("busbar-sizing", "Busbar sizing: standard arrangements that pass", busbarSizingSchema, (i) => calcBusbarSizing(i as never)),
+  "fault-withstand": kind("fault-withstand", "Short-circuit withstand, thermal and mechanical", faultWithstandSchema, (i) => calcFaultWithstand(i as never)),
+  "enclosure-heat": kind("enclosure-heat", "Enclosure heat budget", enclosureHeatSchema, (i) => calcEnclosureHeat(i as never)),
+} as const satisfies Record<string, CalcKind>;
+
+export type CalcKindName = keyof typeof CALC_KINDS;
+export const CALC_KIND_NAMES = Object.keys(CALC_KINDS) as CalcKindName[];
+
+export function isCalcKind(k: string): k is CalcKindName {
+  return Object.prototype.hasOwnProperty.call(CALC_KINDS, k);
+}
+
+export type RunOutcome = { ok: true; result: CalcResult<unknown> } | { ok: false; fields: Record<string, string> };
+
+/** Validates and runs one calculation. Never throws for bad input: field messages come back instead. */
+export function runCalc(kindName: string, raw: unknown): RunOutcome {
+  if (!isCalcKind(kindName)) return { ok: false, fields: { kind: `Unknown calculation kind "${kindName}"; known: ${CALC_KIND_NAMES.join(", ")}` } };
+  const k: CalcKind = CALC_KINDS[kindName];
+  const parsed = k.schema.safeParse(raw);
+  if (!parsed.success) return { ok: false, fields: fieldErrors(parsed.error) };
+  try {
+    return { ok: true, result: k.run(parsed.data as never) };
+  } catch (err) {
+    if (err instanceof EngineError) return { ok: false, fields: { [err.field ?? "_"]: err.message } };
+    const zodLike = err as { issues?: unknown };
+    if (zodLike && Array.isArray(zodLike.issues)) return { ok: false, fields: fieldErrors(err as z.ZodError) };
+    throw err;
+  }
+}
