@@ -10,6 +10,10 @@ import { calcFaultWithstand, faultWithstandSchema } from "./short-circuit";
 import { calcEnclosureHeat, enclosureHeatSchema } from "./enclosure-heat";
 import { calcBusbarRating, busbarRatingSchema } from "./busbar-thermal";
 import { calcBusbarSizing, busbarSizingSchema } from "./busbar-sizing";
+import { voltageDrop, voltageDropInputSchema } from "./voltage-drop";
+import { cableAmpacity, cableAmpacityInputSchema } from "./cable-ampacity";
+import { ampacityFromTable, ampacityLookupInputSchema } from "./ampacity-table";
+import { cableSizing, cableSizingInputSchema } from "./cable-sizing";
 
 export { ENGINE_VERSION };
 export type { CalcResult };
@@ -29,6 +33,10 @@ export const CALC_KINDS = {
   resistance: kind("resistance", "Conductor resistance, DC and AC", resistanceInputSchema, (i) => calcResistance(i)),
   "busbar-rating": kind("busbar-rating", "Busbar temperature and rating (heat balance)", busbarRatingSchema, (i) => calcBusbarRating(i as never)),
   "busbar-sizing": kind("busbar-sizing", "Busbar sizing: standard arrangements that pass", busbarSizingSchema, (i) => calcBusbarSizing(i as never)),
+  "voltage-drop": kind("voltage-drop", "Feeder voltage drop", voltageDropInputSchema, (i) => voltageDrop(i as never)),
+  "cable-ampacity": kind("cable-ampacity", "Cable ampacity in free air (IEC 60287)", cableAmpacityInputSchema, (i) => cableAmpacity(i as never)),
+  "ampacity-table": kind("ampacity-table", "Ampacity from an organisation table with corrections", ampacityLookupInputSchema, (i) => ampacityFromTable(i as never)),
+  "cable-sizing": kind("cable-sizing", "Cable sizing: smallest size and number in parallel", cableSizingInputSchema, (i) => cableSizing(i as never)),
   "fault-withstand": kind("fault-withstand", "Short-circuit withstand, thermal and mechanical", faultWithstandSchema, (i) => calcFaultWithstand(i as never)),
   "enclosure-heat": kind("enclosure-heat", "Enclosure heat budget", enclosureHeatSchema, (i) => calcEnclosureHeat(i as never)),
 } as const satisfies Record<string, CalcKind>;
