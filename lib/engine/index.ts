@@ -14,6 +14,8 @@ import { voltageDrop, voltageDropInputSchema } from "./voltage-drop";
 import { cableAmpacity, cableAmpacityInputSchema } from "./cable-ampacity";
 import { ampacityFromTable, ampacityLookupInputSchema } from "./ampacity-table";
 import { cableSizing, cableSizingInputSchema } from "./cable-sizing";
+import { parallelSharing, parallelSharingInputSchema } from "./parallel";
+import { networkInputSchema, solveNetwork } from "./network";
 
 export { ENGINE_VERSION };
 export type { CalcResult };
@@ -37,6 +39,8 @@ export const CALC_KINDS = {
   "cable-ampacity": kind("cable-ampacity", "Cable ampacity in free air (IEC 60287)", cableAmpacityInputSchema, (i) => cableAmpacity(i as never)),
   "ampacity-table": kind("ampacity-table", "Ampacity from an organisation table with corrections", ampacityLookupInputSchema, (i) => ampacityFromTable(i as never)),
   "cable-sizing": kind("cable-sizing", "Cable sizing: smallest size and number in parallel", cableSizingInputSchema, (i) => cableSizing(i as never)),
+  "parallel-sharing": kind("parallel-sharing", "Current sharing between parallel paths", parallelSharingInputSchema, (i) => parallelSharing(i as never)),
+  "bus-network": kind("bus-network", "Bus network: nodal analysis of a panel's distribution", networkInputSchema, (i) => solveNetwork(i as never)),
   "fault-withstand": kind("fault-withstand", "Short-circuit withstand, thermal and mechanical", faultWithstandSchema, (i) => calcFaultWithstand(i as never)),
   "enclosure-heat": kind("enclosure-heat", "Enclosure heat budget", enclosureHeatSchema, (i) => calcEnclosureHeat(i as never)),
 } as const satisfies Record<string, CalcKind>;

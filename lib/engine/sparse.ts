@@ -18,8 +18,9 @@
  *    for solving Ax = b, where A is symmetric complex", IEEE Trans. Magn. 26(2) 1990.
  *
  * Stopping test: ‖b − A·x‖₂ ≤ tol·‖b‖₂ on the recurrence residual (default
- * tol = 1e-12). The true residual is recomputed from x after the loop and returned;
- * `converged` is true when that true residual is ≤ 10·tol.
+ * tol = 1e-12), then the true residual is recomputed from x (restarting from it when
+ * it has drifted). `converged` is true when the true relative residual is ≤ 10·tol,
+ * or the normwise backward error is at rounding level (≤ 64·ε, see ROUNDING_LEVEL).
  */
 
 export interface CsrMatrix {
@@ -528,6 +529,11 @@ export interface SolveStats {
   relativeResidual: number;
   /** ‖b − A·x‖₂/‖b‖₂ recomputed from the returned x. */
   trueRelativeResidual: number;
+  /**
+   * Normwise backward error η = ‖b − A·x‖∞/(‖A‖∞·‖x‖∞ + ‖b‖∞) (Rigal & Gaches 1967;
+   * N. J. Higham, Accuracy and Stability of Numerical Algorithms, 2nd ed., §7.1).
+   */
+  backwardError: number;
   converged: boolean;
   tolerance: number;
   preconditioner: "ic0" | "ic0-shifted";
@@ -541,61 +547,106 @@ function norm2(v: Float64Array): number {
   return Math.sqrt(s);
 }
 
+/**
+ * Backward error treated as "solved to rounding": 64 units of double rounding. A
+ * stiff network (milliohm bars next to long cables) cannot reach a relative residual
+ * of 1e-12 in double precision; it is accepted when η is at rounding level.
+ */
+export const ROUNDING_LEVEL = 64 * Number.EPSILON;
+
+function normInf(v: Float64Array): number {
+  let m = 0;
+  for (let i = 0; i < v.length; i++) m = Math.max(m, Math.abs(v[i]!));
+  return m;
+}
+
+function complexNormInf(a: Float64Array, b: Float64Array): number {
+  let m = 0;
+  for (let i = 0; i < a.length; i++) m = Math.max(m, Math.hypot(a[i]!, b[i]!));
+  return m;
+}
+
+function csrNormInf(rowPtr: Int32Array, re: Float64Array, im: Float64Array | null): number {
+  let m = 0;
+  for (let i = 0; i + 1 < rowPtr.length; i++) {
+    let s = 0;
+    for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) s += im ? Math.hypot(re[p]!, im[p]!) : Math.abs(re[p]!);
+    m = Math.max(m, s);
+  }
+  return m;
+}
+
 function defaultMaxIter(n: number): number {
   return Math.max(200, Math.ceil(20 * Math.sqrt(n)));
 }
 
-/** Preconditioned conjugate gradients (Saad 2003, Algorithm 9.1) with an IC(0) factor. */
+/** Restarts from the true residual b − A·x when the recurrence residual has drifted from it. */
+const MAX_RESTARTS = 4;
+
+/**
+ * Preconditioned conjugate gradients (Saad 2003, Algorithm 9.1) with an IC(0) factor.
+ * When the recurrence says "converged" but the true residual b − A·x is still above
+ * tol, CG is restarted from the true residual (residual replacement), up to 4 times.
+ */
 export function pcg(A: CsrMatrix, b: Float64Array, M: Ic0Factor, opts: IterativeOptions = {}): { x: Float64Array; stats: SolveStats } {
   const n = A.n;
   const tol = opts.tol ?? DEFAULT_TOLERANCE;
   const maxIter = opts.maxIter ?? defaultMaxIter(n);
   const x = new Float64Array(n);
-  const r = Float64Array.from(b);
+  const r = new Float64Array(n);
   const z = new Float64Array(n);
   const p = new Float64Array(n);
   const q = new Float64Array(n);
   const bnorm = norm2(b);
   const base = { tolerance: tol, preconditioner: M.shift > 0 ? ("ic0-shifted" as const) : ("ic0" as const), shift: M.shift, ordering: "rcm" as const };
-  if (bnorm === 0) return { x, stats: { iterations: 0, relativeResidual: 0, trueRelativeResidual: 0, converged: true, ...base } };
-  ic0Apply(M, r, z);
-  p.set(z);
-  let rz = 0;
-  for (let i = 0; i < n; i++) rz += r[i]! * z[i]!;
+  if (bnorm === 0) return { x, stats: { iterations: 0, relativeResidual: 0, trueRelativeResidual: 0, backwardError: 0, converged: true, ...base } };
   let it = 0;
   let rel = 1;
-  while (it < maxIter) {
-    it++;
-    csrMulVec(A, p, q);
-    let pq = 0;
-    for (let i = 0; i < n; i++) pq += p[i]! * q[i]!;
-    if (!(pq > 0)) break;
-    const alpha = rz / pq;
-    let rr = 0;
-    for (let i = 0; i < n; i++) {
-      x[i] = x[i]! + alpha * p[i]!;
-      const ri = r[i]! - alpha * q[i]!;
-      r[i] = ri;
-      rr += ri * ri;
-    }
-    rel = Math.sqrt(rr) / bnorm;
-    if (rel <= tol) break;
+  let trueRel = 1;
+  let backward = 1;
+  const aInf = csrNormInf(A.rowPtr, A.values, null);
+  const bInf = normInf(b);
+  for (let restart = 0; restart <= MAX_RESTARTS; restart++) {
+    csrMulVec(A, x, q);
+    for (let i = 0; i < n; i++) r[i] = b[i]! - q[i]!;
+    trueRel = norm2(r) / bnorm;
+    backward = normInf(r) / (aInf * normInf(x) + bInf);
+    if (trueRel <= tol || backward <= ROUNDING_LEVEL || it >= maxIter) break;
     ic0Apply(M, r, z);
-    let rzNew = 0;
-    for (let i = 0; i < n; i++) rzNew += r[i]! * z[i]!;
-    const beta = rzNew / rz;
-    rz = rzNew;
-    for (let i = 0; i < n; i++) p[i] = z[i]! + beta * p[i]!;
+    p.set(z);
+    let rz = 0;
+    for (let i = 0; i < n; i++) rz += r[i]! * z[i]!;
+    while (it < maxIter) {
+      it++;
+      csrMulVec(A, p, q);
+      let pq = 0;
+      for (let i = 0; i < n; i++) pq += p[i]! * q[i]!;
+      if (!(pq > 0)) break;
+      const alpha = rz / pq;
+      let rr = 0;
+      for (let i = 0; i < n; i++) {
+        x[i] = x[i]! + alpha * p[i]!;
+        const ri = r[i]! - alpha * q[i]!;
+        r[i] = ri;
+        rr += ri * ri;
+      }
+      rel = Math.sqrt(rr) / bnorm;
+      if (rel <= tol) break;
+      ic0Apply(M, r, z);
+      let rzNew = 0;
+      for (let i = 0; i < n; i++) rzNew += r[i]! * z[i]!;
+      const beta = rzNew / rz;
+      rz = rzNew;
+      for (let i = 0; i < n; i++) p[i] = z[i]! + beta * p[i]!;
+    }
   }
-  csrMulVec(A, x, q);
-  for (let i = 0; i < n; i++) q[i] = b[i]! - q[i]!;
-  const trueRel = norm2(q) / bnorm;
-  return { x, stats: { iterations: it, relativeResidual: rel, trueRelativeResidual: trueRel, converged: trueRel <= 10 * tol, ...base } };
+  return { x, stats: { iterations: it, relativeResidual: rel, trueRelativeResidual: trueRel, backwardError: backward, converged: trueRel <= 10 * tol || backward <= ROUNDING_LEVEL, ...base } };
 }
 
 /**
  * COCG for complex symmetric A (van der Vorst & Melissen 1990): CG with the bilinear
  * form xᵀy (no conjugation) in place of the inner product; ‖·‖₂ for the stopping test.
+ * Same residual-replacement restarts as `pcg`.
  */
 export function cocg(
   A: ComplexCsrMatrix,
@@ -609,8 +660,8 @@ export function cocg(
   const maxIter = opts.maxIter ?? defaultMaxIter(n);
   const xr = new Float64Array(n);
   const xi = new Float64Array(n);
-  const rr = Float64Array.from(br);
-  const ri = Float64Array.from(bi);
+  const rr = new Float64Array(n);
+  const ri = new Float64Array(n);
   const zr = new Float64Array(n);
   const zi = new Float64Array(n);
   const pr = new Float64Array(n);
@@ -619,94 +670,110 @@ export function cocg(
   const qi = new Float64Array(n);
   const bnorm = Math.hypot(norm2(br), norm2(bi));
   const base = { tolerance: tol, preconditioner: M.shift > 0 ? ("ic0-shifted" as const) : ("ic0" as const), shift: M.shift, ordering: "rcm" as const };
-  if (bnorm === 0) return { xr, xi, stats: { iterations: 0, relativeResidual: 0, trueRelativeResidual: 0, converged: true, ...base } };
-  complexIc0Apply(M, rr, ri, zr, zi);
-  pr.set(zr);
-  pi.set(zi);
-  // ρ = rᵀz (unconjugated)
-  let rhoR = 0;
-  let rhoI = 0;
-  for (let i = 0; i < n; i++) {
-    rhoR += rr[i]! * zr[i]! - ri[i]! * zi[i]!;
-    rhoI += rr[i]! * zi[i]! + ri[i]! * zr[i]!;
-  }
+  if (bnorm === 0) return { xr, xi, stats: { iterations: 0, relativeResidual: 0, trueRelativeResidual: 0, backwardError: 0, converged: true, ...base } };
   let it = 0;
   let rel = 1;
-  while (it < maxIter) {
-    it++;
-    complexCsrMulVec(A, pr, pi, qr, qi);
-    let sR = 0;
-    let sI = 0;
+  let trueRel = 1;
+  let backward = 1;
+  const aInf = csrNormInf(A.rowPtr, A.re, A.im);
+  const bInf = complexNormInf(br, bi);
+  for (let restart = 0; restart <= MAX_RESTARTS; restart++) {
+    complexCsrMulVec(A, xr, xi, qr, qi);
+    let tr = 0;
     for (let i = 0; i < n; i++) {
-      sR += pr[i]! * qr[i]! - pi[i]! * qi[i]!;
-      sI += pr[i]! * qi[i]! + pi[i]! * qr[i]!;
+      rr[i] = br[i]! - qr[i]!;
+      ri[i] = bi[i]! - qi[i]!;
+      tr += rr[i]! * rr[i]! + ri[i]! * ri[i]!;
     }
-    const ss = sR * sR + sI * sI;
-    if (!(ss > 0)) break;
-    // α = ρ / (pᵀq)
-    const aR = (rhoR * sR + rhoI * sI) / ss;
-    const aI = (rhoI * sR - rhoR * sI) / ss;
-    let res = 0;
-    for (let i = 0; i < n; i++) {
-      const pR = pr[i]!;
-      const pI = pi[i]!;
-      xr[i] = xr[i]! + aR * pR - aI * pI;
-      xi[i] = xi[i]! + aR * pI + aI * pR;
-      const qR = qr[i]!;
-      const qI = qi[i]!;
-      const nr = rr[i]! - (aR * qR - aI * qI);
-      const ni = ri[i]! - (aR * qI + aI * qR);
-      rr[i] = nr;
-      ri[i] = ni;
-      res += nr * nr + ni * ni;
-    }
-    rel = Math.sqrt(res) / bnorm;
-    if (rel <= tol) break;
+    trueRel = Math.sqrt(tr) / bnorm;
+    backward = complexNormInf(rr, ri) / (aInf * complexNormInf(xr, xi) + bInf);
+    if (trueRel <= tol || backward <= ROUNDING_LEVEL || it >= maxIter) break;
     complexIc0Apply(M, rr, ri, zr, zi);
-    let nR = 0;
-    let nI = 0;
+    pr.set(zr);
+    pi.set(zi);
+    // ρ = rᵀz (unconjugated)
+    let rhoR = 0;
+    let rhoI = 0;
     for (let i = 0; i < n; i++) {
-      nR += rr[i]! * zr[i]! - ri[i]! * zi[i]!;
-      nI += rr[i]! * zi[i]! + ri[i]! * zr[i]!;
+      rhoR += rr[i]! * zr[i]! - ri[i]! * zi[i]!;
+      rhoI += rr[i]! * zi[i]! + ri[i]! * zr[i]!;
     }
-    const rho2 = rhoR * rhoR + rhoI * rhoI;
-    if (!(rho2 > 0)) break;
-    const bR = (nR * rhoR + nI * rhoI) / rho2;
-    const bI = (nI * rhoR - nR * rhoI) / rho2;
-    rhoR = nR;
-    rhoI = nI;
-    for (let i = 0; i < n; i++) {
-      const pR = pr[i]!;
-      const pI = pi[i]!;
-      pr[i] = zr[i]! + bR * pR - bI * pI;
-      pi[i] = zi[i]! + bR * pI + bI * pR;
+    while (it < maxIter) {
+      it++;
+      complexCsrMulVec(A, pr, pi, qr, qi);
+      let sR = 0;
+      let sI = 0;
+      for (let i = 0; i < n; i++) {
+        sR += pr[i]! * qr[i]! - pi[i]! * qi[i]!;
+        sI += pr[i]! * qi[i]! + pi[i]! * qr[i]!;
+      }
+      const ss = sR * sR + sI * sI;
+      if (!(ss > 0)) break;
+      // α = ρ / (pᵀq)
+      const aR = (rhoR * sR + rhoI * sI) / ss;
+      const aI = (rhoI * sR - rhoR * sI) / ss;
+      let res = 0;
+      for (let i = 0; i < n; i++) {
+        const pR = pr[i]!;
+        const pI = pi[i]!;
+        xr[i] = xr[i]! + aR * pR - aI * pI;
+        xi[i] = xi[i]! + aR * pI + aI * pR;
+        const qR = qr[i]!;
+        const qI = qi[i]!;
+        const nr = rr[i]! - (aR * qR - aI * qI);
+        const ni = ri[i]! - (aR * qI + aI * qR);
+        rr[i] = nr;
+        ri[i] = ni;
+        res += nr * nr + ni * ni;
+      }
+      rel = Math.sqrt(res) / bnorm;
+      if (rel <= tol) break;
+      complexIc0Apply(M, rr, ri, zr, zi);
+      let nR = 0;
+      let nI = 0;
+      for (let i = 0; i < n; i++) {
+        nR += rr[i]! * zr[i]! - ri[i]! * zi[i]!;
+        nI += rr[i]! * zi[i]! + ri[i]! * zr[i]!;
+      }
+      const rho2 = rhoR * rhoR + rhoI * rhoI;
+      if (!(rho2 > 0)) break;
+      const bR = (nR * rhoR + nI * rhoI) / rho2;
+      const bI = (nI * rhoR - nR * rhoI) / rho2;
+      rhoR = nR;
+      rhoI = nI;
+      for (let i = 0; i < n; i++) {
+        const pR = pr[i]!;
+        const pI = pi[i]!;
+        pr[i] = zr[i]! + bR * pR - bI * pI;
+        pi[i] = zi[i]! + bR * pI + bI * pR;
+      }
     }
   }
-  complexCsrMulVec(A, xr, xi, qr, qi);
-  let tr = 0;
-  for (let i = 0; i < n; i++) {
-    const a = br[i]! - qr[i]!;
-    const b = bi[i]! - qi[i]!;
-    tr += a * a + b * b;
-  }
-  const trueRel = Math.sqrt(tr) / bnorm;
-  return { xr, xi, stats: { iterations: it, relativeResidual: rel, trueRelativeResidual: trueRel, converged: trueRel <= 10 * tol, ...base } };
+  return { xr, xi, stats: { iterations: it, relativeResidual: rel, trueRelativeResidual: trueRel, backwardError: backward, converged: trueRel <= 10 * tol || backward <= ROUNDING_LEVEL, ...base } };
 }
 
 // ---------------------------------------------------------------------------------
 // Front ends: order, factor, iterate, restore the original numbering
+
+function maxAbs(a: Float64Array, b: Float64Array): number {
+  let m = 0;
+  for (let i = 0; i < a.length; i++) m = Math.max(m, Math.abs(a[i]!), Math.abs(b[i]!));
+  return m;
+}
 
 /** Solves A·x = b for real symmetric positive definite A: RCM → IC(0) → PCG. */
 export function solveSpd(A: CsrMatrix, b: Float64Array, opts: IterativeOptions = {}): { x: Float64Array; stats: SolveStats } {
   if (b.length !== A.n) throw new RangeError(`right-hand side has ${b.length} entries, matrix order is ${A.n}`);
   const perm = rcmOrdering(A);
   const B = permuteSymmetric(A, perm);
+  // Right-hand side scaled to max |b| = 1 so tiny or huge data cannot under/overflow ‖b‖².
+  const scale = maxAbs(b, b);
   const pb = new Float64Array(A.n);
-  for (let i = 0; i < A.n; i++) pb[i] = b[perm[i]!]!;
+  if (scale > 0) for (let i = 0; i < A.n; i++) pb[i] = b[perm[i]!]! / scale;
   const M = ic0(B);
   const { x: px, stats } = pcg(B, pb, M, opts);
   const x = new Float64Array(A.n);
-  for (let i = 0; i < A.n; i++) x[perm[i]!] = px[i]!;
+  for (let i = 0; i < A.n; i++) x[perm[i]!] = px[i]! * scale;
   return { x, stats };
 }
 
@@ -720,19 +787,21 @@ export function solveComplexSymmetric(
   if (br.length !== A.n || bi.length !== A.n) throw new RangeError(`right-hand side has ${br.length} entries, matrix order is ${A.n}`);
   const perm = rcmOrdering(A);
   const B = permuteSymmetric(A, perm);
+  const scale = maxAbs(br, bi);
   const pr = new Float64Array(A.n);
   const pi = new Float64Array(A.n);
-  for (let i = 0; i < A.n; i++) {
-    pr[i] = br[perm[i]!]!;
-    pi[i] = bi[perm[i]!]!;
-  }
+  if (scale > 0)
+    for (let i = 0; i < A.n; i++) {
+      pr[i] = br[perm[i]!]! / scale;
+      pi[i] = bi[perm[i]!]! / scale;
+    }
   const M = complexIc0(B);
   const r = cocg(B, pr, pi, M, opts);
   const xr = new Float64Array(A.n);
   const xi = new Float64Array(A.n);
   for (let i = 0; i < A.n; i++) {
-    xr[perm[i]!] = r.xr[i]!;
-    xi[perm[i]!] = r.xi[i]!;
+    xr[perm[i]!] = r.xr[i]! * scale;
+    xi[perm[i]!] = r.xi[i]! * scale;
   }
   return { xr, xi, stats: r.stats };
 }
