@@ -1,0 +1,59 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { count, eq } from "drizzle-orm";
+import { closeDb, db } from "@/db/client";
+import { auditEvents, organisations, projects, users } from "@/db/schema";
+import { verifyPassword } from "@/lib/auth/password";
+import { toProjectFormValues } from "@/lib/validation/project";
+import { DEMO_USERS, seedDemo } from "../../scripts/seed";
+import { resetDb } from "../support/db";
+
+async function counts() {
+  const n = async (t: typeof organisations | typeof users | typeof projects | typeof auditEvents) =>
+    (await db().select({ n: count() }).from(t))[0]!.n;
+  return { organisations: await n(organisations), users: await n(users), projects: await n(projects), audit: await n(auditEvents) };
+}
+
+describe("demo seed", () => {
+  beforeAll(async () => {
+    await resetDb();
+  });
+  afterAll(async () => {
+    await closeDb();
+  });
+
+  it("creates one organisation, one user per role and three projects, then does nothing the second time", async () => {
+    const first = await seedDemo(db());
+    expect(first.created).toBe(true);
+    const after = await counts();
+    expect(after).toEqual({ organisations: 1, users: 4, projects: 3, audit: 3 });
+
+    const second = await seedDemo(db());
+    expect(second.created).toBe(false);
+    expect(second.organisationId).toBe(first.organisationId);
+    expect(await counts()).toEqual(after);
+  });
+
+  it("stores verifiable password hashes for the printed demo passwords", async () => {
+    expect(new Set(DEMO_USERS.map((u) => u.role))).toEqual(new Set(["admin", "lead", "engineer", "viewer"]));
+    for (const u of DEMO_USERS) {
+      const [row] = await db().select({ hash: users.passwordHash, role: users.role, name: users.name }).from(users).where(eq(users.email, u.email));
+      expect(row).toMatchObject({ role: u.role, name: u.name });
+      expect(row!.hash).not.toBe(u.password);
+      expect(await verifyPassword(row!.hash, u.password)).toBe(true);
+      expect(await verifyPassword(row!.hash, `${u.password}x`)).toBe(false);
+    }
+  });
+
+  it("seeds projects that pass the project form's own rules, the imperial one in °F and ft", async () => {
+    const rows = await db().select().from(projects).orderBy(projects.code);
+    expect(rows.map((r) => r.code)).toEqual(["WPC-24017", "WPC-24022", "WPC-24031"]);
+    const cp7 = rows[2]!;
+    const form = toProjectFormValues({ ...cp7, designAmbientC: cp7.designAmbient, altitudeM: cp7.altitude });
+    expect(form).toMatchObject({ unitSystem: "imperial", frequency: "60", designAmbient: "104", altitude: "850" });
+    const { projectSchema } = await import("@/lib/validation/project");
+    for (const r of rows) {
+      const parsed = projectSchema.safeParse(toProjectFormValues({ ...r, designAmbientC: r.designAmbient, altitudeM: r.altitude }));
+      expect(parsed.success, r.code).toBe(true);
+    }
+  });
+});
