@@ -5,6 +5,7 @@ import { z } from "zod";
 import { db } from "@/db/client";
 import { users, type Role } from "@/db/schema";
 import { env } from "@/lib/env";
+import { audit } from "@/lib/audit";
 import { verifyPassword } from "./password";
 import { formatRetry, lockedUntil, recordAttempt } from "./throttle";
 
@@ -36,7 +37,10 @@ export async function authorizeCredentials(raw: unknown, ip?: string | null) {
     return null;
   }
   await recordAttempt(email, true, ip);
-  await db().update(users).set({ lastSignInAt: new Date() }).where(eq(users.id, user.id));
+  await db().transaction(async (tx) => {
+    await tx.update(users).set({ lastSignInAt: new Date() }).where(eq(users.id, user.id));
+    await audit(tx, { organisationId: user.organisationId, actorId: user.id, event: "user.signed_in", entityType: "user", entityId: user.id, details: ip ? { ip } : {} });
+  });
   return { id: String(user.id), name: user.name, email: user.email, organisationId: user.organisationId, role: user.role };
 }
 
