@@ -18,6 +18,7 @@ export const AUDIT_EVENTS = [
   "sheet.created",
   "sheet.saved",
   "sheet.submitted",
+  "sheet.withdrawn",
   "sheet.approved",
   "sheet.returned",
   "sheet.revised",

@@ -107,7 +107,9 @@ export function guardedRoute<P extends Record<string, string> = Record<string, s
       let actor: Actor | null = null;
       const authz = req.headers.get("authorization");
       if (authz && /^bearer /i.test(authz)) {
-        actor = bearerResolver ? await bearerResolver(authz.slice(7).trim()) : null;
+        // Loaded on demand: tokens.ts imports this module, so a static import would be circular.
+        const resolve = bearerResolver ?? (await import("./tokens")).resolveBearer;
+        actor = await resolve(authz.slice(7).trim());
         if (!actor) throw unauthenticated("The API token is not valid or was revoked");
       } else {
         actor = await currentActor();

@@ -46,3 +46,21 @@ function pastTense(name: TransitionName): string {
 
 /** Statuses whose inputs may be edited in place; an approved revision is locked. */
 export const EDITABLE_STATUSES: readonly SheetStatus[] = ["draft", "returned"];
+
+/** Outcome of `editAllowed`: how a save applies, or why it is refused ("status" → 409, "author" → 403). */
+export type EditCheck = { ok: true; mode: "in_place" | "new_revision" } | { ok: false; reason: string; kind: "status" | "author" };
+
+/**
+ * What saving new inputs does to the latest revision (role checks stay with `can(role,
+ * "sheet.write")`): a draft or returned revision is edited in place, by its author only
+ * (so a lead can never approve inputs they wrote into someone else's revision); an
+ * approved revision stays locked and the save starts a new draft revision whose author
+ * is the editor; a revision in review must be withdrawn first.
+ */
+export function editAllowed(ctx: { status: SheetStatus; actorId: number; authorId: number }): EditCheck {
+  if (ctx.status === "in_review") return { ok: false, kind: "status", reason: "This revision is in review; withdraw it before editing" };
+  if (ctx.status === "approved" || ctx.status === "superseded") return { ok: true, mode: "new_revision" };
+  if (ctx.actorId !== ctx.authorId)
+    return { ok: false, kind: "author", reason: "Only the author of this revision can edit it; ask them to make the change or to submit it for review" };
+  return { ok: true, mode: "in_place" };
+}
