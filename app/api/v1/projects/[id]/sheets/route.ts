@@ -1,16 +1,13 @@
-import { listSheetsOfProject } from "@/db/queries/sheets";
 import { guardedRoute, readJson } from "@/lib/auth/guard";
-import { createSheet } from "@/lib/sheets/service";
+import { createSheet, listProjectSheets } from "@/lib/sheets/service";
 import { createSheetBody } from "../../../sheets/bodies";
-import { loadSheetJson, parseRouteId, requireProject, sheetSummaryJson } from "../../../sheets/json";
+import { loadSheetJson, parseRouteId, sheetSummaryJson } from "../../../sheets/json";
 
 export const dynamic = "force-dynamic";
 
 /** GET /api/v1/projects/{id}/sheets: the project's sheets in order, each with its latest revision. */
 export const GET = guardedRoute<{ id: string }>({ permission: "sheet.read" }, async ({ actor, params }) => {
-  const projectId = parseRouteId(params.id, "Project");
-  await requireProject(actor, projectId);
-  const rows = await listSheetsOfProject(actor.organisationId, projectId);
+  const rows = await listProjectSheets(actor, parseRouteId(params.id, "Project"));
   return { sheets: rows.map(sheetSummaryJson) };
 });
 
