@@ -209,7 +209,8 @@ describe("roles and status", () => {
     await setUserStatus(admin, eng.id, "active");
     expect(await authorizeCredentials({ email: eng.email, password: eng.password })).toMatchObject({ id: String(eng.id) });
     const events = (await db().select().from(auditEvents)).map((e) => e.event);
-    expect(events).toEqual(["user.deactivated", "user.reactivated"]);
+    // The successful sign-in after reactivation is itself audited.
+    expect(events).toEqual(["user.deactivated", "user.reactivated", "user.signed_in"]);
     const list = await listUsers(orgId);
     expect(list.find((u) => u.id === eng.id)?.status).toBe("active");
     expect(Object.keys(list[0]!)).not.toContain("passwordHash");
