@@ -10,6 +10,8 @@ import { Wordmark } from "./wordmark";
 export function navItemsFor(actor: Pick<Actor, "role">, fakeSmtp: boolean): NavItem[] {
   const items: NavItem[] = [];
   if (can(actor.role, "project.read")) items.push({ href: "/projects", label: "Projects" });
+  if (can(actor.role, "sheet.write")) items.push({ href: "/my-sheets", label: "My sheets" });
+  if (can(actor.role, "sheet.review")) items.push({ href: "/review", label: "Review queue" });
   if (can(actor.role, "users.manage")) items.push({ href: "/admin/users", label: "Users" });
   if (fakeSmtp && can(actor.role, "mailbox.read")) items.push({ href: "/admin/mailbox", label: "Mailbox" });
   return items;

@@ -1,5 +1,6 @@
 "use client";
 
+import Link from "next/link";
 import { signOut } from "next-auth/react";
 import { useEffect, useId, useRef, useState } from "react";
 
@@ -67,6 +68,12 @@ export function UserMenu({ name, email, roleLabel, organisationName }: UserMenuP
               <span className="font-medium">{roleLabel}</span> at {organisationName}
             </p>
           </div>
+          <Link href="/account/tokens" onClick={() => setOpen(false)} className="block px-4 py-2.5 text-sm font-medium text-fen-800 hover:bg-fen-50">
+            API tokens
+          </Link>
+          <Link href="/api-docs" onClick={() => setOpen(false)} className="block border-b border-fen-100 px-4 py-2.5 text-sm font-medium text-fen-800 hover:bg-fen-50">
+            API reference
+          </Link>
           <button
             type="button"
             disabled={signingOut}

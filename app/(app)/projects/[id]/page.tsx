@@ -8,6 +8,9 @@ import { listProjectAudit, type ProjectDetail } from "@/db/queries/projects";
 import { requirePageActor } from "@/lib/auth/guard";
 import { can } from "@/lib/auth/roles";
 import { cToF, mToFt, STANDARD_FAMILY_LABELS, SYSTEM_TYPE_LABELS, tidy } from "@/lib/validation/project";
+import { ProjectSheetsTable } from "@/components/sheets/project-sheets-table";
+import { toSheetRow } from "@/components/sheets/sheet-row";
+import { listProjectSheets } from "@/lib/sheets/reads";
 import { ArchiveButton } from "./archive-button";
 import { AuditHistory } from "./audit-history";
 import { loadProjectOr404 } from "./load";
@@ -47,6 +50,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ id: st
   const actor = await requirePageActor("project.read");
   const project = await loadProjectOr404(actor, (await params).id);
   const history = await listProjectAudit(actor.organisationId, project.id, 20);
+  const sheetRows = (await listProjectSheets(actor, project.id)).map(toSheetRow);
   const env = environment(project);
   const archived = project.archivedAt !== null;
 
@@ -69,8 +73,13 @@ export default async function ProjectPage({ params }: { params: Promise<{ id: st
         description={[project.client, project.site].filter(Boolean).join(" · ") || undefined}
         actions={
           <>
+            {can(actor.role, "sheet.write") && !archived && (
+              <Link href={`/projects/${project.id}/sheets/new`} className="btn-primary">
+                New sheet
+              </Link>
+            )}
             {can(actor.role, "project.write") && !archived && (
-              <Link href={`/projects/${project.id}/edit`} className="btn-primary">
+              <Link href={`/projects/${project.id}/edit`} className="btn-secondary">
                 Edit project
               </Link>
             )}
@@ -84,6 +93,13 @@ export default async function ProjectPage({ params }: { params: Promise<{ id: st
           Archived on <DateTime value={project.archivedAt!} />. It is kept read-only and hidden from the project list unless archived projects are shown.
         </p>
       )}
+
+      <section aria-labelledby="sheets-heading" className="mb-6">
+        <h2 id="sheets-heading" className="mb-2 text-sm font-semibold uppercase tracking-wider text-fen-600">
+          Calculation sheets
+        </h2>
+        <ProjectSheetsTable rows={sheetRows} caption={`Calculation sheets of ${project.code}`} />
+      </section>
 
       <div className="grid gap-6 lg:grid-cols-3">
         <div className="space-y-6 lg:col-span-2">

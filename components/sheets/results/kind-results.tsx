@@ -1,0 +1,49 @@
+"use client";
+
+import type { BusbarRatingResults } from "@/lib/engine/busbar-thermal";
+import type { BusbarSizingResults, SizingCandidate } from "@/lib/engine/busbar-sizing";
+import type { CalcResult } from "@/lib/engine/core/result";
+import type { EnclosureHeatResults } from "@/lib/engine/enclosure-heat";
+import type { FilamentDensity } from "@/lib/engine/filament";
+import type { ParallelSharingResults } from "@/lib/engine/parallel";
+import type { FaultWithstandResults } from "@/lib/engine/short-circuit";
+import type { VoltageDropResults } from "@/lib/engine/voltage-drop";
+import type { UnitSystem } from "@/lib/sheets/units";
+import { BusbarRatingKeyResults } from "./busbar-rating";
+import { BusbarSizingKeyResults } from "./busbar-sizing";
+import { EnclosureHeatKeyResults } from "./enclosure-heat";
+import { FaultWithstandKeyResults } from "./fault-withstand";
+import { ParallelSharingKeyResults } from "./parallel-sharing";
+import { VoltageDropKeyResults } from "./voltage-drop";
+
+/** The key results (and pictures) of a result, by its kind. */
+export function KindResults({
+  result,
+  inputs,
+  unitSystem,
+  density,
+  onPick,
+}: {
+  result: CalcResult<unknown>;
+  inputs: Record<string, unknown>;
+  unitSystem: UnitSystem;
+  density?: readonly FilamentDensity[];
+  onPick?: (c: SizingCandidate) => void;
+}) {
+  switch (result.kind) {
+    case "busbar-rating":
+      return <BusbarRatingKeyResults results={result.results as BusbarRatingResults} inputs={inputs} unitSystem={unitSystem} density={density} />;
+    case "busbar-sizing":
+      return <BusbarSizingKeyResults results={result.results as BusbarSizingResults} unitSystem={unitSystem} onPick={onPick} />;
+    case "voltage-drop":
+      return <VoltageDropKeyResults results={result.results as VoltageDropResults} inputs={inputs} unitSystem={unitSystem} />;
+    case "fault-withstand":
+      return <FaultWithstandKeyResults results={result.results as FaultWithstandResults} unitSystem={unitSystem} />;
+    case "enclosure-heat":
+      return <EnclosureHeatKeyResults results={result.results as EnclosureHeatResults} unitSystem={unitSystem} />;
+    case "parallel-sharing":
+      return <ParallelSharingKeyResults results={result.results as ParallelSharingResults} inputs={inputs} unitSystem={unitSystem} />;
+    default:
+      return null;
+  }
+}
