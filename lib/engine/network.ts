@@ -16,6 +16,10 @@
  *
  * Per-phase model: every segment is one conductor (one phase pack, or `count`
  * identical ones in parallel); the return path is not part of the network.
+ *
+ * Speed: the bulk arrays are read straight into typed columns by a pass with the
+ * schema's rules (readNetworkTables), and the per-segment loops are small functions
+ * over typed arrays, so a 100 000-node panel allocates little besides its results.
  */
 import { z } from "zod";
 import { arrangementSchema, barCurrentForTemperature, barTemperatureForCurrent, prepareBusbar, acRatios, type PreparedBusbar } from "./busbar-thermal";
@@ -36,7 +40,9 @@ const conductorSchema = z
     materialId: choice("material", MATERIAL_IDS),
     temperId: z.string().optional(),
     /** Cross-section of one conductor, m² (or give a bar arrangement: its phase area is used). */
-    area_m2: num("cross-section", "m²", 0, 0.1, { exclusiveMin: true }).optional(),
+    // 1e-8 m² = 0.01 mm²: below any real conductor, and far above the sizes at which the
+    // conductance matrix loses positive definiteness in double precision.
+    area_m2: num("cross-section", "m²", 1e-8, 0.1).optional(),
     arrangement: arrangementSchema.optional(),
     /** Identical conductors (or phase packs) in parallel in every segment of this spec. */
     count: int("conductors in parallel", 1, 100).default(1),
@@ -62,7 +68,8 @@ const segmentSchema = z.object({
   from: idField("from node"),
   to: idField("to node"),
   conductor: idField("conductor"),
-  length_m: num("length", "m", 0, 10_000, { exclusiveMin: true }),
+  // 0.1 mm: shorter links are joints, not segments (and make the matrix singular in double precision).
+  length_m: num("length", "m", 1e-4, 10_000),
   /** Overrides the conductor's reactance per metre for this segment. */
   reactance_ohm_per_m: num("reactance per metre", "Ω/m", 0, 0.01).optional(),
 });
@@ -80,17 +87,22 @@ const loadSchema = z.object({
   leading: z.boolean().default(false),
 });
 
+const headShape = {
+  mode: choice("mode", ["dc", "ac"] as const),
+  frequency_Hz: num("frequency", "Hz", 1, 1000).default(50),
+  ambient_C: num("ambient temperature", "°C", -40, 80).default(35),
+  maxTemperature_C: num("maximum conductor temperature", "°C", 0, 250).default(90),
+  dropLimit_pct: num("voltage drop limit", "%", 0, 100, { exclusiveMin: true }).optional(),
+  conductors: z.array(conductorSchema).min(1, "conductors: at least one conductor spec is needed").max(NETWORK_LIMITS.maxConductors, `conductors: at most ${NETWORK_LIMITS.maxConductors} specs`),
+};
+const suppliesSchema = z.array(supplySchema).max(NETWORK_LIMITS.maxSupplies, `supplies: at most ${NETWORK_LIMITS.maxSupplies} supplies`);
+
 export const networkInputSchema = z
   .object({
-    mode: choice("mode", ["dc", "ac"] as const),
-    frequency_Hz: num("frequency", "Hz", 1, 1000).default(50),
-    ambient_C: num("ambient temperature", "°C", -40, 80).default(35),
-    maxTemperature_C: num("maximum conductor temperature", "°C", 0, 250).default(90),
-    dropLimit_pct: num("voltage drop limit", "%", 0, 100, { exclusiveMin: true }).optional(),
-    conductors: z.array(conductorSchema).min(1, "conductors: at least one conductor spec is needed").max(NETWORK_LIMITS.maxConductors, `conductors: at most ${NETWORK_LIMITS.maxConductors} specs`),
+    ...headShape,
     nodes: z.array(nodeSchema).min(1, "nodes: at least one node is needed").max(NETWORK_LIMITS.maxNodes, `nodes: at most ${NETWORK_LIMITS.maxNodes} nodes`),
     segments: z.array(segmentSchema).max(NETWORK_LIMITS.maxSegments, `segments: at most ${NETWORK_LIMITS.maxSegments} segments`),
-    supplies: z.array(supplySchema).max(NETWORK_LIMITS.maxSupplies, `supplies: at most ${NETWORK_LIMITS.maxSupplies} supplies`),
+    supplies: suppliesSchema,
     loads: z.array(loadSchema).max(NETWORK_LIMITS.maxLoads, `loads: at most ${NETWORK_LIMITS.maxLoads} loads`).default([]),
   })
   .superRefine((v, ctx) => {
@@ -124,8 +136,10 @@ export const networkInputSchema = z
     });
   });
 
+/** The small parts of the input (settings, conductor specs, supplies), validated by zod on the fast path too. */
+const headSchema = z.object({ ...headShape, supplies: suppliesSchema });
+
 export type NetworkInput = z.input<typeof networkInputSchema>;
-type Parsed = z.output<typeof networkInputSchema>;
 
 /** A disconnected part of the network that has loads but no path to any supply. */
 export class IslandError extends EngineError {
@@ -265,17 +279,411 @@ function lookup(t: ThermalTable, I: number): number {
   return t.theta[lo]! + f * (t.theta[hi]! - t.theta[lo]!);
 }
 
-function parse(raw: NetworkInput): Parsed {
+// ---------------------------------------------------------------------------------
+// Input reading. `networkInputSchema` is the contract (forms, API, messages). A panel
+// of 100 000 nodes has some 300 000 bulk records, and zod spends more time on them
+// than the solve; so the bulk arrays (nodes, segments, loads) are checked here by a
+// hand-written pass with exactly the schema's rules, straight into typed columns.
+// Whenever that pass finds anything wrong, the zod schema parses the input instead
+// and its messages are reported: the messages are the schema's by construction.
+
+/** The input as the solver reads it: settings and specs from zod, bulk arrays as columns. */
+export interface NetworkTables {
+  head: z.output<typeof headSchema>;
+  nodeIds: string[];
+  nodeIndex: Map<string, number>;
+  segmentIds: string[];
+  segmentFrom: string[];
+  segmentTo: string[];
+  sFrom: Int32Array;
+  sTo: Int32Array;
+  sSpec: Int32Array;
+  sLength: Float64Array;
+  /** Per-segment reactance override, Ω/m; NaN where the conductor's value applies. */
+  sReactance: Float64Array;
+  loadNode: Int32Array;
+  loadCurrent: Float64Array;
+  loadPf: Float64Array;
+  loadLeading: Uint8Array;
+}
+
+/** The numeric strings `num` (core/schema.ts) accepts. */
+const NUMERIC = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
+
+/** The number `num(label, unit, min, max)` yields for v, or NaN where it reports an issue. */
+function numberIn(v: unknown, min: number, max: number, exclusiveMin: boolean): number {
+  let x: number;
+  if (typeof v === "number") x = v;
+  else if (typeof v === "string") {
+    const t = v.trim().replace(/\s+/g, "");
+    x = t !== "" && NUMERIC.test(t) ? Number(t) : Number.NaN;
+  } else return Number.NaN;
+  return Number.isFinite(x) && (exclusiveMin ? x > min : x >= min) && x <= max ? x : Number.NaN;
+}
+
+/** The id `idField` yields (trimmed, 1–100 characters), or null. */
+function idIn(v: unknown): string | null {
+  if (typeof v !== "string") return null;
+  const len = v.length;
+  // an id that starts and ends with a printable ASCII character has nothing to trim
+  const first = len > 0 ? v.charCodeAt(0) : 0;
+  const last = len > 0 ? v.charCodeAt(len - 1) : 0;
+  if (first > 32 && first < 127 && last > 32 && last < 127) return len <= 100 ? v : null;
+  const t = v.trim();
+  return t.length >= 1 && t.length <= 100 ? t : null;
+}
+
+function isRecord(v: unknown): v is Record<string, unknown> {
+  return typeof v === "object" && v !== null && !Array.isArray(v);
+}
+
+/**
+ * The hand-written pass: the input as tables when it is valid in every respect the
+ * schema checks, null otherwise (then the schema reports what is wrong).
+ */
+export function readNetworkTables(raw: unknown): NetworkTables | null {
+  if (!isRecord(raw)) return null;
+  const headParsed = headSchema.safeParse({
+    mode: raw.mode,
+    frequency_Hz: raw.frequency_Hz,
+    ambient_C: raw.ambient_C,
+    maxTemperature_C: raw.maxTemperature_C,
+    dropLimit_pct: raw.dropLimit_pct,
+    conductors: raw.conductors,
+    supplies: raw.supplies,
+  });
+  if (!headParsed.success) return null;
+  const head = headParsed.data;
+  const specIndex = new Map<string, number>();
+  for (let k = 0; k < head.conductors.length; k++) {
+    const id = head.conductors[k]!.id;
+    if (specIndex.has(id)) return null;
+    specIndex.set(id, k);
+  }
+
+  const rawNodes = raw.nodes;
+  if (!Array.isArray(rawNodes) || rawNodes.length < 1 || rawNodes.length > NETWORK_LIMITS.maxNodes) return null;
+  const n = rawNodes.length;
+  const nodeIds: string[] = []; // filled by push: `new Array(n)` of 100 000+ is a slow dictionary array in V8
+  const nodeIndex = new Map<string, number>();
+  for (let i = 0; i < n; i++) {
+    const nd: unknown = rawNodes[i];
+    if (!isRecord(nd)) return null;
+    const id = idIn(nd.id);
+    if (id === null || nodeIndex.has(id)) return null;
+    nodeIds.push(id);
+    nodeIndex.set(id, i);
+  }
+
+  const rawSegs = raw.segments;
+  if (!Array.isArray(rawSegs) || rawSegs.length > NETWORK_LIMITS.maxSegments) return null;
+  const m = rawSegs.length;
+  const segmentIds: string[] = [];
+  const segmentFrom: string[] = [];
+  const segmentTo: string[] = [];
+  const sFrom = new Int32Array(m);
+  const sTo = new Int32Array(m);
+  const sSpec = new Int32Array(m);
+  const sLength = new Float64Array(m);
+  const sReactance = new Float64Array(m);
+  const segSeen = new Set<string>();
+  for (let k = 0; k < m; k++) {
+    const sg: unknown = rawSegs[k];
+    if (!isRecord(sg)) return null;
+    const id = idIn(sg.id);
+    const from = idIn(sg.from);
+    const to = idIn(sg.to);
+    const cond = idIn(sg.conductor);
+    if (id === null || from === null || to === null || cond === null || from === to || segSeen.has(id)) return null;
+    const a = nodeIndex.get(from);
+    const b = nodeIndex.get(to);
+    const spec = specIndex.get(cond);
+    if (a === undefined || b === undefined || spec === undefined) return null;
+    const len = numberIn(sg.length_m, 1e-4, 10_000, false);
+    if (Number.isNaN(len)) return null;
+    let x = Number.NaN;
+    if (sg.reactance_ohm_per_m !== undefined) {
+      x = numberIn(sg.reactance_ohm_per_m, 0, 0.01, false);
+      if (Number.isNaN(x)) return null;
+    }
+    segSeen.add(id);
+    segmentIds.push(id);
+    segmentFrom.push(from);
+    segmentTo.push(to);
+    sFrom[k] = a;
+    sTo[k] = b;
+    sSpec[k] = spec;
+    sLength[k] = len;
+    sReactance[k] = x;
+  }
+
+  const fed = new Set<string>();
+  for (const s of head.supplies) {
+    if (!nodeIndex.has(s.node) || fed.has(s.node)) return null;
+    fed.add(s.node);
+  }
+
+  const rawLoads = raw.loads === undefined ? [] : raw.loads;
+  if (!Array.isArray(rawLoads) || rawLoads.length > NETWORK_LIMITS.maxLoads) return null;
+  const nl = rawLoads.length;
+  const loadNode = new Int32Array(nl);
+  const loadCurrent = new Float64Array(nl);
+  const loadPf = new Float64Array(nl);
+  const loadLeading = new Uint8Array(nl);
+  for (let j = 0; j < nl; j++) {
+    const l: unknown = rawLoads[j];
+    if (!isRecord(l)) return null;
+    const node = idIn(l.node);
+    const i = node === null ? undefined : nodeIndex.get(node);
+    if (i === undefined) return null;
+    const current = numberIn(l.current_A, 0, 1_000_000, false);
+    const pf = l.pf === undefined ? 1 : numberIn(l.pf, 0, 1, false);
+    if (Number.isNaN(current) || Number.isNaN(pf)) return null;
+    if (l.leading !== undefined && typeof l.leading !== "boolean") return null;
+    loadNode[j] = i;
+    loadCurrent[j] = current;
+    loadPf[j] = pf;
+    loadLeading[j] = l.leading === true ? 1 : 0;
+  }
+  return { head, nodeIds, nodeIndex, segmentIds, segmentFrom, segmentTo, sFrom, sTo, sSpec, sLength, sReactance, loadNode, loadCurrent, loadPf, loadLeading };
+}
+
+/**
+ * All field messages for a network input (as `fieldErrors` of the schema gives them),
+ * or null when it is valid — the fast pass decides, zod words the messages. For
+ * callers that would otherwise run the whole schema over the bulk arrays.
+ */
+export function networkInputErrors(raw: unknown): Record<string, string> | null {
+  if (readNetworkTables(raw)) return null;
+  const parsed = networkInputSchema.safeParse(raw);
+  return parsed.success ? null : fieldErrors(parsed.error);
+}
+
+/** Tables from the fast pass; when it finds a problem, the schema's first field message as an EngineError. */
+function readInput(raw: unknown): NetworkTables {
+  const fast = readNetworkTables(raw);
+  if (fast) return fast;
   const parsed = networkInputSchema.safeParse(raw);
   if (!parsed.success) {
     const [field, message] = Object.entries(fieldErrors(parsed.error))[0] ?? ["_", "invalid input"];
     throw new EngineError("invalid-input", `${field}: ${message}`, field);
   }
-  return parsed.data;
+  // The schema's output is plain data the fast pass always reads; null would be a defect here.
+  const again = readNetworkTables(parsed.data);
+  if (!again) throw new EngineError("invalid-input", "the network input could not be read", "_");
+  return again;
+}
+
+// The hot loops over all segments, as small functions of typed arrays: V8 optimises
+// them early and they allocate nothing per segment.
+
+interface SegmentColumns {
+  sFrom: Int32Array;
+  sTo: Int32Array;
+  sR: Float64Array;
+  sX: Float64Array;
+  /** 1 for a segment that carries current (not peeled, reached from a supply). */
+  live: Uint8Array;
+  /** Node potentials relative to the first supply, real and imaginary parts. */
+  uR: Float64Array;
+  uI: Float64Array;
+}
+
+/** Y_uu entries into `builder`, and the supply terms −Y_us·V_s into b (nodal analysis). */
+function assembleNodal(c: SegmentColumns & { unk: Int32Array; supplyOf: Int32Array }, builder: TripletBuilder, bR: Float64Array, bI: Float64Array): void {
+  const { sFrom, sTo, sR, sX, live, unk, supplyOf, uR, uI } = c;
+  for (let k = 0; k < sFrom.length; k++) {
+    if (!live[k]) continue;
+    const d = sR[k]! * sR[k]! + sX[k]! * sX[k]!;
+    const yr = sR[k]! / d;
+    const yi = -sX[k]! / d;
+    const a = sFrom[k]!;
+    const b = sTo[k]!;
+    const ua = unk[a]!;
+    const ub = unk[b]!;
+    if (ua >= 0) builder.add(ua, ua, yr, yi);
+    if (ub >= 0) builder.add(ub, ub, yr, yi);
+    if (ua >= 0 && ub >= 0) {
+      builder.add(ua, ub, -yr, -yi);
+      builder.add(ub, ua, -yr, -yi);
+    } else if (ua >= 0 && supplyOf[b]! >= 0) {
+      bR[ua] = bR[ua]! + yr * uR[b]! - yi * uI[b]!;
+      bI[ua] = bI[ua]! + yr * uI[b]! + yi * uR[b]!;
+    } else if (ub >= 0 && supplyOf[a]! >= 0) {
+      bR[ub] = bR[ub]! + yr * uR[a]! - yi * uI[a]!;
+      bI[ub] = bI[ub]! + yr * uI[a]! + yi * uR[a]!;
+    }
+  }
+}
+
+/** Segment current phasors I = ΔV/(R + jX), the net inflow at every node, and Σ|I|²R. */
+function segmentCurrents(c: SegmentColumns, n: number) {
+  const { sFrom, sTo, sR, sX, live, uR, uI } = c;
+  const m = sFrom.length;
+  const iR = new Float64Array(m);
+  const iI = new Float64Array(m);
+  const inflowR = new Float64Array(n);
+  const inflowI = new Float64Array(n);
+  let totalLoss = 0;
+  for (let k = 0; k < m; k++) {
+    if (!live[k]) continue;
+    const a = sFrom[k]!;
+    const b = sTo[k]!;
+    const dr = uR[a]! - uR[b]!;
+    const di = uI[a]! - uI[b]!;
+    const r = sR[k]!;
+    const x = sX[k]!;
+    const d = r * r + x * x;
+    // I = ΔV/(R + jX) = ΔV·(R − jX)/(R² + X²)
+    const cr = (dr * r + di * x) / d;
+    const ci = (di * r - dr * x) / d;
+    iR[k] = cr;
+    iI[k] = ci;
+    inflowR[b] = inflowR[b]! + cr;
+    inflowI[b] = inflowI[b]! + ci;
+    inflowR[a] = inflowR[a]! - cr;
+    inflowI[a] = inflowI[a]! - ci;
+    totalLoss += (cr * cr + ci * ci) * r;
+  }
+  return { iR, iI, inflowR, inflowI, totalLoss };
+}
+
+/** Node voltages (magnitude and angle), drops against |V_ref|, the largest drop and Σ Re(V·conj(I_load)). */
+function nodeResults(
+  nodeIds: string[],
+  reached: Uint8Array,
+  uR: Float64Array,
+  uI: Float64Array,
+  loadR: Float64Array,
+  loadI: Float64Array,
+  vRefR: number,
+  vRefI: number,
+  vRefMag: number,
+  ac: boolean,
+): { nodes: NodeResult[]; worst: number; loadPower: number } {
+  const nodes: NodeResult[] = []; // filled by push: `new Array(n)` of 100 000+ is a slow dictionary array in V8
+  let worst = -1;
+  let worstDrop = -Infinity;
+  let loadPower = 0;
+  for (let i = 0; i < nodeIds.length; i++) {
+    const id = nodeIds[i]!;
+    if (!reached[i]) {
+      nodes.push({ id, voltage_V: null, angle_deg: null, drop_V: null, drop_pct: null });
+      continue;
+    }
+    const vr = uR[i]! + vRefR;
+    const vi = uI[i]! + vRefI;
+    const mag = ac ? Math.sqrt(vr * vr + vi * vi) : vr;
+    const drop = vRefMag - mag;
+    nodes.push({ id, voltage_V: mag, angle_deg: ac ? (Math.atan2(vi, vr) * 180) / Math.PI : 0, drop_V: drop, drop_pct: (drop / vRefMag) * 100 });
+    if (worst < 0 || drop > worstDrop) {
+      worst = i;
+      worstDrop = drop;
+    }
+    // P = Re(V·conj(I))
+    loadPower += vr * loadR[i]! + vi * loadI[i]!;
+  }
+  return { nodes, worst, loadPower };
+}
+
+/** Per-segment results: current phasor, direction of power flow, loss, current density, temperature, utilisation. */
+function segmentResults(tables: NetworkTables, specs: SpecData[], c: SegmentColumns, iR: Float64Array, iI: Float64Array, vRefR: number, vRefI: number, ambient: number, ac: boolean) {
+  const segments: SegmentResult[] = [];
+  let anyTemp = false;
+  let overloads = 0;
+  let maxUtil = 0;
+  let hotTemp = 0;
+  const runaway: string[] = [];
+  const hotPerSpec = new Float64Array(specs.length).fill(-Infinity);
+  const { sSpec } = tables;
+  for (let k = 0; k < sSpec.length; k++) {
+    const sp = specs[sSpec[k]!]!;
+    const cr = iR[k]!;
+    const ci = iI[k]!;
+    const mag = ac ? Math.sqrt(cr * cr + ci * ci) : Math.abs(cr);
+    const a = c.sFrom[k]!;
+    const pFlow = (c.uR[a]! + vRefR) * cr + (c.uI[a]! + vRefI) * ci;
+    const seg: SegmentResult = {
+      id: tables.segmentIds[k]!,
+      from: tables.segmentFrom[k]!,
+      to: tables.segmentTo[k]!,
+      current_A: mag,
+      angle_deg: mag === 0 ? 0 : (Math.atan2(ci, cr) * 180) / Math.PI,
+      direction: mag === 0 ? 0 : pFlow >= 0 ? 1 : -1,
+      resistance_ohm: c.sR[k]!,
+      reactance_ohm: c.sX[k]!,
+      loss_W: mag * mag * c.sR[k]!,
+      currentDensity_A_per_mm2: mag / (sp.area * 1e6),
+    };
+    const perCond = mag / sp.count;
+    if (sp.thermal) {
+      const th = lookup(sp.thermal, perCond);
+      if (Number.isNaN(th)) runaway.push(seg.id);
+      else seg.temperature_C = th;
+    } else if (sp.ampacity !== undefined) {
+      const u = perCond / sp.ampacity;
+      seg.temperature_C = ambient + (sp.tmax - ambient) * u * u;
+    }
+    if (sp.ampacity !== undefined) {
+      seg.utilisation = perCond / sp.ampacity;
+      if (seg.utilisation > 1) overloads++;
+      if (seg.utilisation > maxUtil) maxUtil = seg.utilisation;
+    }
+    if (seg.temperature_C !== undefined) {
+      anyTemp = true;
+      seg.temperatureRise_K = seg.temperature_C - ambient;
+      if (seg.temperature_C > hotTemp) hotTemp = seg.temperature_C;
+      if (seg.temperature_C > hotPerSpec[sSpec[k]!]!) hotPerSpec[sSpec[k]!] = seg.temperature_C;
+    }
+    segments.push(seg);
+  }
+  return { segments, anyTemp, overloads, maxUtil, hotTemp, runaway, hotPerSpec };
+}
+
+/** Largest |Σ I_in − I_load| over the free nodes (Kirchhoff's current law residual). */
+function kclResidual(reached: Uint8Array, supplyOf: Int32Array, inflowR: Float64Array, inflowI: Float64Array, loadR: Float64Array, loadI: Float64Array): number {
+  let worst = 0;
+  for (let i = 0; i < reached.length; i++) {
+    if (!reached[i] || supplyOf[i]! >= 0) continue;
+    const er = inflowR[i]! - loadR[i]!;
+    const ei = inflowI[i]! - loadI[i]!;
+    const e = Math.sqrt(er * er + ei * ei);
+    if (e > worst) worst = e;
+  }
+  return worst;
+}
+
+/** Largest current per conductor of every spec, A. */
+function largestCurrentPerSpec(sSpec: Int32Array, specCount: Float64Array, iR: Float64Array, iI: Float64Array): Float64Array {
+  const out = new Float64Array(specCount.length);
+  for (let k = 0; k < sSpec.length; k++) {
+    const s = sSpec[k]!;
+    const I = Math.sqrt(iR[k]! * iR[k]! + iI[k]! * iI[k]!) / specCount[s]!;
+    if (I > out[s]!) out[s] = I;
+  }
+  return out;
+}
+
+/** The ten segments with the highest temperature (or current density when no temperature is known), highest first. */
+function hottestTen(segments: SegmentResult[], byTemperature: boolean): SegmentResult[] {
+  const score = (s: SegmentResult) => (byTemperature ? (s.temperature_C ?? -Infinity) : s.currentDensity_A_per_mm2);
+  const top: SegmentResult[] = [];
+  for (let k = 0; k < segments.length; k++) {
+    const s = segments[k]!;
+    const v = score(s);
+    if (top.length < 10 || v > score(top[top.length - 1]!)) {
+      let pos = top.length;
+      while (pos > 0 && score(top[pos - 1]!) < v) pos--;
+      top.splice(pos, 0, s);
+      if (top.length > 10) top.pop();
+    }
+  }
+  return top;
 }
 
 export function solveNetwork(raw: NetworkInput): CalcResult<NetworkResults> {
-  const inp = parse(raw);
+  const tables = readInput(raw);
+  const inp = tables.head;
   const warnings: Warning[] = [];
   const checks: Check[] = [];
   const formulas: Formula[] = [];
@@ -283,10 +691,8 @@ export function solveNetwork(raw: NetworkInput): CalcResult<NetworkResults> {
   const ac = inp.mode === "ac";
   if (inp.supplies.length === 0) throw new EngineError("no-supply", "The network has no supply node: give at least one supply with its voltage", "supplies");
 
-  // --- conductor specs
-  const specIndex = new Map<string, number>();
-  const specs: SpecData[] = inp.conductors.map((c, k) => {
-    specIndex.set(c.id, k);
+  // --- conductor specs: resistance and reactance per metre once per spec
+  const specs: SpecData[] = inp.conductors.map((c) => {
     const arr = c.arrangement as BarArrangement | undefined;
     const area = arr ? phaseArea(arr) : c.area_m2!;
     let acRatio = 1;
@@ -311,34 +717,44 @@ export function solveNetwork(raw: NetworkInput): CalcResult<NetworkResults> {
   if (!ac) for (const s of specs) s.xPerM = 0;
 
   // --- nodes, segments, loads, supplies
-  const n = inp.nodes.length;
-  const nodeIndex = new Map<string, number>();
-  inp.nodes.forEach((nd, i) => nodeIndex.set(nd.id, i));
-  const m = inp.segments.length;
-  const sFrom = new Int32Array(m);
-  const sTo = new Int32Array(m);
+  const { nodeIds, nodeIndex, sFrom, sTo, sSpec, sLength, sReactance, loadNode, loadCurrent, loadPf, loadLeading } = tables;
+  const n = nodeIds.length;
+  const m = sFrom.length;
+  const specR = new Float64Array(specs.length);
+  const specX = new Float64Array(specs.length);
+  const specCount = new Float64Array(specs.length);
+  specs.forEach((sp, k) => {
+    specR[k] = sp.rPerM;
+    specX[k] = sp.xPerM;
+    specCount[k] = sp.count;
+  });
   const sR = new Float64Array(m);
   const sX = new Float64Array(m);
-  const sSpec = new Int32Array(m);
-  inp.segments.forEach((s, k) => {
-    sFrom[k] = nodeIndex.get(s.from)!;
-    sTo[k] = nodeIndex.get(s.to)!;
-    const spec = specIndex.get(s.conductor)!;
-    sSpec[k] = spec;
-    const sp = specs[spec]!;
-    sR[k] = sp.rPerM * s.length_m;
-    sX[k] = ac ? (s.reactance_ohm_per_m !== undefined ? s.reactance_ohm_per_m / sp.count : sp.xPerM) * s.length_m : 0;
-  });
+  for (let k = 0; k < m; k++) {
+    const spec = sSpec[k]!;
+    const len = sLength[k]!;
+    sR[k] = specR[spec]! * len;
+    if (ac) {
+      const x = sReactance[k]!;
+      sX[k] = (Number.isNaN(x) ? specX[spec]! : x / specCount[spec]!) * len;
+    }
+  }
   const loadR = new Float64Array(n);
   const loadI = new Float64Array(n);
-  for (const l of inp.loads) {
-    const i = nodeIndex.get(l.node)!;
-    // Constant-current load, phasor referred to the first supply's voltage angle (common practice).
-    const ang = ac ? Math.acos(l.pf) * (l.leading ? 1 : -1) + (inp.supplies[0]!.angle_deg * Math.PI) / 180 : 0;
-    loadR[i] = loadR[i]! + l.current_A * Math.cos(ang);
-    loadI[i] = loadI[i]! + l.current_A * Math.sin(ang);
+  const refAngle = (inp.supplies[0]!.angle_deg * Math.PI) / 180;
+  let anyPf = false;
+  for (let j = 0; j < loadNode.length; j++) {
+    const i = loadNode[j]!;
+    const current = loadCurrent[j]!;
+    if (loadPf[j] !== 1) anyPf = true;
+    if (ac) {
+      // Constant-current load, phasor referred to the first supply's voltage angle (common practice).
+      const ang = Math.acos(loadPf[j]!) * (loadLeading[j] ? 1 : -1) + refAngle;
+      loadR[i] = loadR[i]! + current * Math.cos(ang);
+      loadI[i] = loadI[i]! + current * Math.sin(ang);
+    } else loadR[i] = loadR[i]! + current;
   }
-  if (!ac && inp.loads.some((l) => l.pf !== 1)) warnings.push({ code: "pf-ignored", message: "Load power factors are ignored in DC mode." });
+  if (!ac && anyPf) warnings.push({ code: "pf-ignored", message: "Load power factors are ignored in DC mode." });
   const supplyOf = new Int32Array(n).fill(-1);
   const vRef = inp.supplies[0]!;
   const vRefR = vRef.voltage_V * Math.cos((vRef.angle_deg * Math.PI) / 180);
@@ -411,7 +827,7 @@ export function solveNetwork(raw: NetworkInput): CalcResult<NetworkResults> {
           }
         }
       }
-      const ids = comp.map((v) => inp.nodes[v]!.id);
+      const ids = comp.map((v) => nodeIds[v]!);
       if (loaded) islands.push(ids);
       else isolatedNodes.push(...ids);
     }
@@ -448,6 +864,10 @@ export function solveNetwork(raw: NetworkInput): CalcResult<NetworkResults> {
     }
   }
 
+  // segments that carry current: not peeled, and reached from a supply
+  const live = new Uint8Array(m);
+  for (let k = 0; k < m; k++) live[k] = !deadSeg[k] && reached[sFrom[k]!] ? 1 : 0;
+
   // --- assemble Y_uu·u = b over the free nodes
   const unk = new Int32Array(n).fill(-1);
   let nu = 0;
@@ -462,28 +882,7 @@ export function solveNetwork(raw: NetworkInput): CalcResult<NetworkResults> {
       bI[u] = -loadI[i]!;
     }
   }
-  for (let k = 0; k < m; k++) {
-    if (deadSeg[k] || !reached[sFrom[k]!]) continue;
-    const d = sR[k]! * sR[k]! + sX[k]! * sX[k]!;
-    const yr = sR[k]! / d;
-    const yi = -sX[k]! / d;
-    const a = sFrom[k]!;
-    const b = sTo[k]!;
-    const ua = unk[a]!;
-    const ub = unk[b]!;
-    if (ua >= 0) builder.add(ua, ua, yr, yi);
-    if (ub >= 0) builder.add(ub, ub, yr, yi);
-    if (ua >= 0 && ub >= 0) {
-      builder.add(ua, ub, -yr, -yi);
-      builder.add(ub, ua, -yr, -yi);
-    } else if (ua >= 0 && supplyOf[b]! >= 0) {
-      bR[ua] = bR[ua]! + yr * uR[b]! - yi * uI[b]!;
-      bI[ua] = bI[ua]! + yr * uI[b]! + yi * uR[b]!;
-    } else if (ub >= 0 && supplyOf[a]! >= 0) {
-      bR[ub] = bR[ub]! + yr * uR[a]! - yi * uI[a]!;
-      bI[ub] = bI[ub]! + yr * uI[a]! + yi * uR[a]!;
-    }
-  }
+  assembleNodal({ sFrom, sTo, sR, sX, live, unk, supplyOf, uR, uI }, builder, bR, bI);
   let solver: NetworkResults["solver"] = null;
   if (nu > 0) {
     if (ac) {
@@ -517,56 +916,13 @@ export function solveNetwork(raw: NetworkInput): CalcResult<NetworkResults> {
   }
 
   // --- segment currents, losses, KCL check
-  const iR = new Float64Array(m);
-  const iI = new Float64Array(m);
-  const inflowR = new Float64Array(n);
-  const inflowI = new Float64Array(n);
-  let totalLoss = 0;
-  for (let k = 0; k < m; k++) {
-    if (deadSeg[k] || !reached[sFrom[k]!]) continue;
-    const a = sFrom[k]!;
-    const b = sTo[k]!;
-    const dr = uR[a]! - uR[b]!;
-    const di = uI[a]! - uI[b]!;
-    const d = sR[k]! * sR[k]! + sX[k]! * sX[k]!;
-    // I = ΔV/(R + jX) = ΔV·(R − jX)/(R² + X²)
-    const cr = (dr * sR[k]! + di * sX[k]!) / d;
-    const ci = (di * sR[k]! - dr * sX[k]!) / d;
-    iR[k] = cr;
-    iI[k] = ci;
-    inflowR[b] = inflowR[b]! + cr;
-    inflowI[b] = inflowI[b]! + ci;
-    inflowR[a] = inflowR[a]! - cr;
-    inflowI[a] = inflowI[a]! - ci;
-    totalLoss += (cr * cr + ci * ci) * sR[k]!;
-  }
-  let maxKcl = 0;
-  for (let i = 0; i < n; i++) {
-    if (!reached[i] || supplyOf[i]! >= 0) continue;
-    maxKcl = Math.max(maxKcl, Math.hypot(inflowR[i]! - loadR[i]!, inflowI[i]! - loadI[i]!));
-  }
+  const { iR, iI, inflowR, inflowI, totalLoss } = segmentCurrents({ sFrom, sTo, sR, sX, live, uR, uI }, n);
+  const maxKcl = kclResidual(reached, supplyOf, inflowR, inflowI, loadR, loadI);
 
   // --- node voltages and drops
-  const vRefMag = vRef.voltage_V;
-  let maxDrop: NetworkResults["maxDrop"] = null;
-  let loadPower = 0;
-  const nodes: NodeResult[] = new Array(n);
-  for (let i = 0; i < n; i++) {
-    const id = inp.nodes[i]!.id;
-    if (!reached[i]) {
-      nodes[i] = { id, voltage_V: null, angle_deg: null, drop_V: null, drop_pct: null };
-      continue;
-    }
-    const vr = uR[i]! + vRefR;
-    const vi = uI[i]! + vRefI;
-    const mag = ac ? Math.hypot(vr, vi) : vr;
-    const drop = vRefMag - mag;
-    const pct = (drop / vRefMag) * 100;
-    nodes[i] = { id, voltage_V: mag, angle_deg: ac ? (Math.atan2(vi, vr) * 180) / Math.PI : 0, drop_V: drop, drop_pct: pct };
-    if (maxDrop === null || drop > maxDrop.drop_V) maxDrop = { node: id, drop_V: drop, drop_pct: pct };
-    // P = Re(V·conj(I))
-    loadPower += vr * loadR[i]! + vi * loadI[i]!;
-  }
+  const { nodes, worst, loadPower } = nodeResults(nodeIds, reached, uR, uI, loadR, loadI, vRefR, vRefI, vRef.voltage_V, ac);
+  const worstNode = worst >= 0 ? nodes[worst]! : null;
+  const maxDrop: NetworkResults["maxDrop"] = worstNode ? { node: worstNode.id, drop_V: worstNode.drop_V!, drop_pct: worstNode.drop_pct! } : null;
   let supplyPower = 0;
   const supplies: SupplyResult[] = inp.supplies.map((s) => {
     const i = nodeIndex.get(s.node)!;
@@ -583,11 +939,7 @@ export function solveNetwork(raw: NetworkInput): CalcResult<NetworkResults> {
 
   // --- temperatures
   const ambient = inp.ambient_C;
-  const maxPerSpec = new Float64Array(specs.length);
-  for (let k = 0; k < m; k++) {
-    const I = Math.hypot(iR[k]!, iI[k]!) / specs[sSpec[k]!]!.count;
-    if (I > maxPerSpec[sSpec[k]!]!) maxPerSpec[sSpec[k]!] = I;
-  }
+  const maxPerSpec = largestCurrentPerSpec(sSpec, specCount, iR, iI);
   let maxTableError = 0;
   inp.conductors.forEach((c, s) => {
     if (!c.arrangement) return;
@@ -607,63 +959,9 @@ export function solveNetwork(raw: NetworkInput): CalcResult<NetworkResults> {
       else throw e;
     }
   });
-  const segments: SegmentResult[] = new Array(m);
-  let anyTemp = false;
-  let overloads = 0;
-  let hotTemp = 0;
-  const runaway: string[] = [];
-  const hotPerSpec = new Float64Array(specs.length).fill(-Infinity);
-  for (let k = 0; k < m; k++) {
-    const sp = specs[sSpec[k]!]!;
-    const cr = iR[k]!;
-    const ci = iI[k]!;
-    const mag = Math.hypot(cr, ci);
-    const a = sFrom[k]!;
-    const pFlow = (uR[a]! + vRefR) * cr + (uI[a]! + vRefI) * ci;
-    const seg: SegmentResult = {
-      id: inp.segments[k]!.id,
-      from: inp.segments[k]!.from,
-      to: inp.segments[k]!.to,
-      current_A: mag,
-      angle_deg: mag === 0 ? 0 : (Math.atan2(ci, cr) * 180) / Math.PI,
-      direction: mag === 0 ? 0 : pFlow >= 0 ? 1 : -1,
-      resistance_ohm: sR[k]!,
-      reactance_ohm: sX[k]!,
-      loss_W: mag * mag * sR[k]!,
-      currentDensity_A_per_mm2: mag / (sp.area * 1e6),
-    };
-    const perCond = mag / sp.count;
-    if (sp.thermal) {
-      const th = lookup(sp.thermal, perCond);
-      if (Number.isNaN(th)) runaway.push(seg.id);
-      else seg.temperature_C = th;
-    } else if (sp.ampacity !== undefined) {
-      const u = perCond / sp.ampacity;
-      seg.temperature_C = ambient + (sp.tmax - ambient) * u * u;
-    }
-    if (sp.ampacity !== undefined) {
-      seg.utilisation = perCond / sp.ampacity;
-      if (seg.utilisation > 1) overloads++;
-    }
-    if (seg.temperature_C !== undefined) {
-      anyTemp = true;
-      seg.temperatureRise_K = seg.temperature_C - ambient;
-      if (seg.temperature_C > hotTemp) hotTemp = seg.temperature_C;
-      if (seg.temperature_C > hotPerSpec[sSpec[k]!]!) hotPerSpec[sSpec[k]!] = seg.temperature_C;
-    }
-    segments[k] = seg;
-  }
+  const { segments, anyTemp, overloads, maxUtil, hotTemp, runaway, hotPerSpec } = segmentResults(tables, specs, { sFrom, sTo, sR, sX, live, uR, uI }, iR, iI, vRefR, vRefI, ambient, ac);
   const hottestBasis = anyTemp ? "temperature" : "current-density";
-  const score = (s: SegmentResult) => (anyTemp ? (s.temperature_C ?? -Infinity) : s.currentDensity_A_per_mm2);
-  const top: SegmentResult[] = [];
-  for (const s of segments) {
-    if (top.length < 10 || score(s) > score(top[top.length - 1]!)) {
-      let pos = top.length;
-      while (pos > 0 && score(top[pos - 1]!) < score(s)) pos--;
-      top.splice(pos, 0, s);
-      if (top.length > 10) top.pop();
-    }
-  }
+  const top = hottestTen(segments, anyTemp);
   const hottest = top.map((s) => ({ id: s.id, currentDensity_A_per_mm2: s.currentDensity_A_per_mm2, ...(s.temperature_C !== undefined ? { temperature_C: s.temperature_C } : {}) }));
   inp.conductors.forEach((c, s) => {
     const worst = hotPerSpec[s]!;
@@ -682,7 +980,6 @@ export function solveNetwork(raw: NetworkInput): CalcResult<NetworkResults> {
   // --- checks, formulas
   if (overloads) warnings.push({ code: "overload", message: `${overloads} segment(s) carry more than their ampacity.` });
   if (inp.dropLimit_pct !== undefined && maxDrop) checks.push(check("drop", `Largest voltage drop (${maxDrop.node}) ≤ limit`, maxDrop.drop_pct, inp.dropLimit_pct, "%"));
-  const maxUtil = segments.reduce((u, s) => Math.max(u, s.utilisation ?? 0), 0);
   if (inp.conductors.some((c) => c.ampacity_A !== undefined)) checks.push(check("ampacity", "Highest segment current / ampacity ≤ 1", maxUtil, 1, ""));
   if (anyTemp && inp.conductors.some((c) => c.arrangement)) checks.push(check("temperature", "Hottest bar segment ≤ maximum conductor temperature", hotTemp, inp.maxTemperature_C, "°C"));
 

@@ -235,7 +235,7 @@ export function rcmOrdering(A: Pattern): Int32Array {
   const order = new Int32Array(n);
   let filled = 0;
   let bfsId = 0;
-  const nbrBuf: number[] = [];
+  const nbrBuf = new Int32Array(n);
 
   /** Rooted level structure; returns [number of levels, count] and leaves queue[0..count) holding the component. */
   const levels = (root: number): [number, number] => {
@@ -293,35 +293,69 @@ export function rcmOrdering(A: Pattern): Int32Array {
     let head = start;
     while (head < filled) {
       const v = order[head++]!;
-      nbrBuf.length = 0;
+      // unnumbered neighbours by increasing (degree, index): insertion sort, the lists are short
+      let cnt = 0;
       for (let p = rowPtr[v]!; p < rowPtr[v + 1]!; p++) {
         const w = colIdx[p]!;
-        if (!placed[w]) {
-          placed[w] = 1;
-          nbrBuf.push(w);
+        if (placed[w]) continue;
+        placed[w] = 1;
+        const dw = degree[w]!;
+        let t = cnt++;
+        while (t > 0) {
+          const u = nbrBuf[t - 1]!;
+          const du = degree[u]!;
+          if (du < dw || (du === dw && u < w)) break;
+          nbrBuf[t] = u;
+          t--;
         }
+        nbrBuf[t] = w;
       }
-      if (nbrBuf.length > 1) nbrBuf.sort((a, b) => degree[a]! - degree[b]! || a - b);
-      for (const w of nbrBuf) order[filled++] = w;
+      for (let t = 0; t < cnt; t++) order[filled++] = nbrBuf[t]!;
     }
   }
   order.reverse();
   return order;
 }
 
-/** B = P·A·Pᵀ with B[i][j] = A[perm[i]][perm[j]] (real or complex). */
+/**
+ * B = P·A·Pᵀ with B[i][j] = A[perm[i]][perm[j]] (real or complex), written row by row
+ * straight into CSR; each row's few entries are put in column order by insertion sort.
+ * A must have sorted rows without duplicates (as every matrix built here has).
+ */
 export function permuteSymmetric<M extends CsrMatrix | ComplexCsrMatrix>(A: M, perm: Int32Array): M {
   const n = A.n;
   const inv = new Int32Array(n);
   for (let i = 0; i < n; i++) inv[perm[i]!] = i;
-  const b = new TripletBuilder(n, A.colIdx.length);
   const complex = "re" in A;
-  const vr = complex ? (A as ComplexCsrMatrix).re : (A as CsrMatrix).values;
-  const vi = complex ? (A as ComplexCsrMatrix).im : null;
-  for (let oi = 0; oi < n; oi++) {
-    for (let p = A.rowPtr[oi]!; p < A.rowPtr[oi + 1]!; p++) b.add(inv[oi]!, inv[A.colIdx[p]!]!, vr[p]!, vi ? vi[p]! : 0);
+  const ar = complex ? (A as ComplexCsrMatrix).re : (A as CsrMatrix).values;
+  const ai = complex ? (A as ComplexCsrMatrix).im : null;
+  const nnz = A.rowPtr[n]!;
+  const rowPtr = new Int32Array(n + 1);
+  const colIdx = new Int32Array(nnz);
+  const br = new Float64Array(nnz);
+  const bi = ai ? new Float64Array(nnz) : null;
+  let q = 0;
+  for (let i = 0; i < n; i++) {
+    const oi = perm[i]!;
+    const start = q;
+    for (let p = A.rowPtr[oi]!; p < A.rowPtr[oi + 1]!; p++) {
+      const j = inv[A.colIdx[p]!]!;
+      const vr = ar[p]!;
+      const vi = ai ? ai[p]! : 0;
+      let t = q++;
+      while (t > start && colIdx[t - 1]! > j) {
+        colIdx[t] = colIdx[t - 1]!;
+        br[t] = br[t - 1]!;
+        if (bi) bi[t] = bi[t - 1]!;
+        t--;
+      }
+      colIdx[t] = j;
+      br[t] = vr;
+      if (bi) bi[t] = vi;
+    }
+    rowPtr[i + 1] = q;
   }
-  return (complex ? b.toComplexCsr() : b.toCsr()) as M;
+  return (complex ? { n, rowPtr, colIdx, re: br, im: bi! } : { n, rowPtr, colIdx, values: br }) as M;
 }
 
 // ---------------------------------------------------------------------------------
@@ -449,7 +483,7 @@ function incompleteLdlt(n: number, A: Pattern, ar: Float64Array, ai: Float64Arra
       }
       for (let q = r0; q < r1; q++) mark[pat.colIdx[q]!] = -1;
       const scaleRef = ar[pd]!;
-      if (li ? !(Math.hypot(sr, si) > 1e-14 * scaleRef) : !(sr > 1e-14 * scaleRef)) ok = false;
+      if (li ? !(Math.sqrt(sr * sr + si * si) > 1e-14 * scaleRef) : !(sr > 1e-14 * scaleRef)) ok = false;
       dr[i] = sr;
       if (di) di[i] = si;
     }
@@ -562,7 +596,7 @@ function normInf(v: Float64Array): number {
 
 function complexNormInf(a: Float64Array, b: Float64Array): number {
   let m = 0;
-  for (let i = 0; i < a.length; i++) m = Math.max(m, Math.hypot(a[i]!, b[i]!));
+  for (let i = 0; i < a.length; i++) m = Math.max(m, Math.sqrt(a[i]! * a[i]! + b[i]! * b[i]!));
   return m;
 }
 
@@ -570,7 +604,7 @@ function csrNormInf(rowPtr: Int32Array, re: Float64Array, im: Float64Array | nul
   let m = 0;
   for (let i = 0; i + 1 < rowPtr.length; i++) {
     let s = 0;
-    for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) s += im ? Math.hypot(re[p]!, im[p]!) : Math.abs(re[p]!);
+    for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) s += im ? Math.sqrt(re[p]! * re[p]! + im[p]! * im[p]!) : Math.abs(re[p]!);
     m = Math.max(m, s);
   }
   return m;

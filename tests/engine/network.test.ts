@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { IslandError, pathBetween, solveNetwork, type NetworkInput } from "../../lib/engine/network";
+import { IslandError, networkInputErrors, networkInputSchema, pathBetween, readNetworkTables, solveNetwork, type NetworkInput } from "../../lib/engine/network";
 import { EngineError } from "../../lib/engine/core/result";
+import { fieldErrors } from "../../lib/engine/core/schema";
 import { barTemperatureForCurrent, prepareBusbar } from "../../lib/engine/busbar-thermal";
 import { emissivity } from "../../lib/engine/materials";
 
@@ -324,5 +325,114 @@ describe("bus network: segment temperature", () => {
     }
     expect(r.results.segments[0]!.current_A).toBeCloseTo(900, 8);
     expect(r.results.hottest[0]!.id).toBe("SA");
+  });
+});
+
+/**
+ * The solver reads the bulk arrays with its own pass (readNetworkTables) and falls back
+ * to the exported zod schema whenever that pass finds a problem. The two must agree on
+ * what is valid and read valid input to the same values; the messages are the schema's.
+ */
+describe("bus network: fast input pass against the zod schema", () => {
+  /** The first field message of the schema, as solveNetwork reports it. */
+  const zodFirst = (raw: unknown) => {
+    const r = networkInputSchema.safeParse(raw);
+    if (r.success) return null;
+    const [field, message] = Object.entries(fieldErrors(r.error))[0]!;
+    return { field, message };
+  };
+  const solverError = (raw: unknown) => {
+    try {
+      solveNetwork(raw as NetworkInput);
+    } catch (e) {
+      if (e instanceof EngineError && e.code === "invalid-input") return { field: e.field, message: e.message };
+      if (e instanceof EngineError) return null;
+      throw e;
+    }
+    return null;
+  };
+  function expectSameVerdict(raw: unknown) {
+    const fast = readNetworkTables(raw);
+    const z = networkInputSchema.safeParse(raw);
+    expect(fast !== null, JSON.stringify(raw).slice(0, 300)).toBe(z.success);
+    if (z.success) {
+      // valid: the fast pass reads the raw input to what it reads from the schema's output
+      expect(fast).toEqual(readNetworkTables(z.data));
+      expect(networkInputErrors(raw)).toBeNull();
+    } else {
+      const first = zodFirst(raw)!;
+      expect(solverError(raw)).toEqual({ field: first.field, message: `${first.field}: ${first.message}` });
+      expect(networkInputErrors(raw)).toEqual(fieldErrors(z.error));
+    }
+  }
+
+  const base = ladder("ac");
+  const withSeg = (s: Record<string, unknown>) => ({ ...base, segments: [...base.segments, s] });
+  const withLoad = (l: Record<string, unknown>) => ({ ...base, loads: [...base.loads!, l] });
+  const BAD: [string, unknown][] = [
+    ["duplicate node", { ...base, nodes: [...base.nodes, { id: "A" }] }],
+    ["node id not text", { ...base, nodes: [...base.nodes, { id: 7 }] }],
+    ["node id blank", { ...base, nodes: [...base.nodes, { id: "   " }] }],
+    ["node id too long", { ...base, nodes: [...base.nodes, { id: "x".repeat(101) }] }],
+    ["node null", { ...base, nodes: [...base.nodes, null] }],
+    ["node array", { ...base, nodes: [...base.nodes, ["Z"]] }],
+    ["nodes empty", { ...base, nodes: [] }],
+    ["nodes not an array", { ...base, nodes: "S,A" }],
+    ["segment to unknown node", withSeg(seg("Z", "A", "Q", 1))],
+    ["segment joins a node to itself", withSeg(seg("Z", "A", " A ", 1))],
+    ["segment unknown conductor", withSeg(seg("Z", "A", "B", 1, "steel"))],
+    ["segment duplicate id", withSeg(seg("SA", "A", "B", 1))],
+    ["segment length 0", withSeg(seg("Z", "A", "B", 0))],
+    ["segment length NaN string", withSeg({ ...seg("Z", "A", "B", 1), length_m: "NaN" })],
+    ["segment length abc", withSeg({ ...seg("Z", "A", "B", 1), length_m: "abc" })],
+    ["segment length Infinity", withSeg({ ...seg("Z", "A", "B", 1), length_m: Infinity })],
+    ["segment length 1e308", withSeg({ ...seg("Z", "A", "B", 1), length_m: 1e308 })],
+    ["segment length hex", withSeg({ ...seg("Z", "A", "B", 1), length_m: "0x10" })],
+    ["segment length empty", withSeg({ ...seg("Z", "A", "B", 1), length_m: "" })],
+    ["segment length missing", withSeg({ id: "Z", from: "A", to: "B", conductor: "cu" })],
+    ["segment reactance too large", withSeg({ ...seg("Z", "A", "B", 1), reactance_ohm_per_m: 1 })],
+    ["segment reactance null", withSeg({ ...seg("Z", "A", "B", 1), reactance_ohm_per_m: null })],
+    ["load negative", withLoad({ node: "A", current_A: -1 })],
+    ["load -1e308", withLoad({ node: "A", current_A: -1e308 })],
+    ["load unknown node", withLoad({ node: "Q", current_A: 1 })],
+    ["load pf above 1", withLoad({ node: "A", current_A: 1, pf: 1.2 })],
+    ["load pf empty string", withLoad({ node: "A", current_A: 1, pf: "" })],
+    ["load leading not boolean", withLoad({ node: "A", current_A: 1, leading: "yes" })],
+    ["loads null", { ...base, loads: null }],
+    ["supply on unknown node", { ...base, supplies: [{ node: "Q", voltage_V: 400 }] }],
+    ["two supplies on one node", { ...base, supplies: [{ node: "S", voltage_V: 400 }, { node: "S", voltage_V: 400 }] }],
+    ["duplicate conductor id", { ...base, conductors: [CU, CU] }],
+    ["mode missing", { ...base, mode: undefined }],
+    ["not an object", [base]],
+  ];
+  it.each(BAD)("rejected by both with the same field and message: %s", (_label, raw) => {
+    expect(readNetworkTables(raw)).toBeNull();
+    expect(networkInputSchema.safeParse(raw).success).toBe(false);
+    expectSameVerdict(raw);
+  });
+
+  it("valid variants read the same: numeric strings, padded ids, defaults, reactance override", () => {
+    expectSameVerdict(base);
+    expectSameVerdict({ ...base, nodes: base.nodes.map((n) => ({ id: ` ${n.id}\t` })) });
+    expectSameVerdict(withSeg({ ...seg("Z", "A", "B", 1), length_m: " 1 2.5 ", reactance_ohm_per_m: "2e-5" }));
+    expectSameVerdict(withLoad({ node: "A", current_A: "+.5", pf: "0.9", leading: true }));
+    expectSameVerdict({ ...base, loads: undefined });
+  });
+
+  it("fuzz: any field of the bulk arrays set to a bad or borderline value (fast-check)", () => {
+    const valueArb = fc.constantFrom<unknown>("NaN", "abc", -1e308, 1e308, "Infinity", Infinity, Number.NaN, null, true, {}, [], "", " ", "A", "B", "cu", "1e2", " 7 ", "0x1", 0, -0, 1, 0.5, 1e4, 10_000.5, 0.01, "x".repeat(101), undefined);
+    const pathArb = fc.oneof(
+      fc.tuple(fc.constant("nodes"), fc.integer({ min: 0, max: 5 }), fc.constant("id")),
+      fc.tuple(fc.constant("segments"), fc.integer({ min: 0, max: 5 }), fc.constantFrom("id", "from", "to", "conductor", "length_m", "reactance_ohm_per_m")),
+      fc.tuple(fc.constant("loads"), fc.integer({ min: 0, max: 1 }), fc.constantFrom("node", "current_A", "pf", "leading")),
+    );
+    fc.assert(
+      fc.property(pathArb, valueArb, ([list, i, key], value) => {
+        const raw = structuredClone(ladder("ac")) as unknown as Record<string, Record<string, unknown>[]>;
+        raw[list]![i]![key] = value;
+        expectSameVerdict(raw);
+      }),
+      { numRuns: 300, seed: 4242 },
+    );
   });
 });

@@ -106,6 +106,39 @@ describe("reverse Cuthill–McKee", () => {
     for (let i = 0; i < n; i++) for (let p = B.rowPtr[i]!; p < B.rowPtr[i + 1]!; p++) band = Math.max(band, Math.abs(B.colIdx[p]! - i));
     expect(band).toBe(1);
   });
+
+  it("P·A·Pᵀ written directly into CSR equals the dense permutation, rows sorted (real and complex)", () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 1e9 }), fc.integer({ min: 1, max: 30 }), fc.integer({ min: 0, max: 40 }), (seed, n, extra) => {
+        const r = rng(seed);
+        const b = new TripletBuilder(n);
+        for (let i = 0; i < n; i++) b.add(i, i, 1 + r(), r());
+        for (const [i, j, w] of randomGraph(n, extra, r)) {
+          b.add(i, j, -w, -w / 2);
+          b.add(j, i, -w, -w / 2);
+        }
+        const A = b.toComplexCsr();
+        const perm = Int32Array.from(Array.from({ length: n }, (_, i) => i).sort(() => r() - 0.5));
+        const B = permuteSymmetric(A, perm);
+        const dense = (M: typeof A, part: "re" | "im") => {
+          const d = Array.from({ length: n }, () => new Array<number>(n).fill(0));
+          for (let i = 0; i < n; i++) for (let p = M.rowPtr[i]!; p < M.rowPtr[i + 1]!; p++) d[i]![M.colIdx[p]!] = M[part][p]!;
+          return d;
+        };
+        for (const part of ["re", "im"] as const) {
+          const a = dense(A, part);
+          const got = dense(B, part);
+          for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) expect(got[i]![j]).toBe(a[perm[i]!]![perm[j]!]);
+        }
+        for (let i = 0; i < n; i++) for (let p = B.rowPtr[i]! + 1; p < B.rowPtr[i + 1]!; p++) expect(B.colIdx[p]!).toBeGreaterThan(B.colIdx[p - 1]!);
+        expect(B.rowPtr[n]).toBe(A.rowPtr[n]);
+        // the real form carries the same pattern and values
+        const Br = permuteSymmetric({ n, rowPtr: A.rowPtr, colIdx: A.colIdx, values: A.re }, perm);
+        expect(Array.from(Br.values)).toEqual(Array.from(B.re));
+      }),
+      { numRuns: 60 },
+    );
+  });
 });
 
 describe("real SPD solve (RCM + IC(0) + PCG) against mathjs dense lusolve", () => {

@@ -109,52 +109,16 @@ function encodeMutated(base: Record<string, unknown>, mutations: Mutation[]): st
   return text;
 }
 
-/* ------------------------------------------------------------------ */
-/* Known engine bugs (reported to the lead; remove when fixed)          */
-/* ------------------------------------------------------------------ */
-
-/**
- * Inputs the engine is known to throw on (a 500). Each has an `it.fails` below that
- * starts failing (and so demands removal) the moment the engine is fixed; while listed,
- * a 500 for a matching input is tolerated in the random runs, any other 500 is not.
- */
-interface KnownBug {
-  kind: CalcKindName;
-  description: string;
-  minimal: Record<string, unknown>;
-  matches: (text: string) => boolean;
-}
-
-function smallestNumberAt(text: string, key: string): number {
-  let min = Infinity;
-  const re = new RegExp(`"${key}":\\s*([-+0-9.eE]+)`, "g");
-  for (const m of text.matchAll(re)) {
-    const n = Number(m[1]);
-    if (Number.isFinite(n) && n > 0) min = Math.min(min, n);
-  }
-  return min;
-}
-
-const KNOWN_ENGINE_BUGS: KnownBug[] = [
-  {
-    kind: "bus-network",
-    description: "a segment whose conductance overflows (area or length below about 1e-150) makes the sparse solver throw instead of a field error",
-    minimal: {
-      mode: "dc",
-      conductors: [{ id: "c", materialId: "cu-etp", area_m2: 1e-200 }],
-      nodes: [{ id: "S" }, { id: "L" }],
-      segments: [{ id: "s", from: "S", to: "L", conductor: "c", length_m: 1 }],
-      supplies: [{ node: "S", voltage_V: 230 }],
-      loads: [{ node: "L", current_A: 10 }],
-    },
-    matches: (text) => smallestNumberAt(text, "area_m2") < 1e-100 || smallestNumberAt(text, "length_m") < 1e-100 || /"(area_m2|length_m)":\s*("?)(4\.9e-324|1e-999)/.test(text),
-  },
-];
-
-function knownBug(kind: string, status: number, text: string | undefined): KnownBug | undefined {
-  if (status !== 500 || text === undefined) return undefined;
-  return KNOWN_ENGINE_BUGS.find((b) => b.kind === kind && b.matches(text));
-}
+/* Regression: a conductance that overflows double precision once made the sparse solver
+ * throw (a 500). The schema now bounds cross-section (≥ 0.01 mm²) and length (≥ 0.1 mm). */
+const TINY_CONDUCTOR_NETWORK = {
+  mode: "dc",
+  conductors: [{ id: "c", materialId: "cu-etp", area_m2: 1e-200 }],
+  nodes: [{ id: "S" }, { id: "L" }],
+  segments: [{ id: "s", from: "S", to: "L", conductor: "c", length_m: 1 }],
+  supplies: [{ node: "S", voltage_V: 230 }],
+  loads: [{ node: "L", current_A: 10 }],
+};
 
 /* ------------------------------------------------------------------ */
 /* Properties                                                            */
@@ -168,7 +132,6 @@ describe("fuzzing /api/v1/calc/{kind}: never a 500", () => {
           fc.asyncProperty(fc.anything({ maxDepth: 3, maxKeys: 6 }), async (value) => {
             const text = JSON.stringify(value);
             const r = await postRaw(kind, text);
-            if (knownBug(kind, r.status, text)) return;
             expectContract(kind, r, text);
           }),
           { numRuns: RUNS.anything },
@@ -182,7 +145,6 @@ describe("fuzzing /api/v1/calc/{kind}: never a 500", () => {
           fc.asyncProperty(fc.oneof(fc.object({ maxDepth: 2 }), withOwnKeys), async (value) => {
             const text = JSON.stringify(value);
             const r = await postRaw(kind, text);
-            if (knownBug(kind, r.status, text)) return;
             expectContract(kind, r, text);
           }),
           { numRuns: RUNS.object },
@@ -197,7 +159,6 @@ describe("fuzzing /api/v1/calc/{kind}: never a 500", () => {
         await fc.assert(
           fc.asyncProperty(bodies, async (text) => {
             const r = await postRaw(kind, text);
-            if (knownBug(kind, r.status, text)) return;
             expectContract(kind, r, text);
           }),
           { numRuns: RUNS.rawBody },
@@ -211,7 +172,6 @@ describe("fuzzing /api/v1/calc/{kind}: never a 500", () => {
           fc.asyncProperty(mutationArb(nodePaths(base)), async (mutations) => {
             const text = encodeMutated(base, mutations);
             const r = await postRaw(kind, text);
-            if (knownBug(kind, r.status, text)) return;
             expectContract(kind, r, text);
           }),
           { numRuns: RUNS.mutations },
@@ -232,12 +192,14 @@ describe("fuzzing /api/v1/calc/{kind}: never a 500", () => {
   });
 });
 
-describe("known engine bugs (each case fails on purpose until the engine is fixed)", () => {
-  for (const bug of KNOWN_ENGINE_BUGS) {
-    it.fails(`${bug.kind}: ${bug.description}`, async () => {
-      const text = JSON.stringify(bug.minimal);
-      expect(bug.matches(text)).toBe(true);
-      expectContract(bug.kind, await postRaw(bug.kind, text), text);
-    });
-  }
+describe("regressions found by fuzzing", () => {
+  it("bus-network: a vanishing cross-section or length is a 400 naming the field, not a 500", async () => {
+    const r1 = await postRaw("bus-network", JSON.stringify(TINY_CONDUCTOR_NETWORK));
+    expect(r1.status).toBe(400);
+    expect(r1.json.error.fields["conductors.0.area_m2"]).toMatch(/cross-section must be from 1e-8 to 0.1 m²/);
+    const tinyLength = { ...TINY_CONDUCTOR_NETWORK, conductors: [{ id: "c", materialId: "cu-etp", area_m2: 1e-4 }], segments: [{ id: "s", from: "S", to: "L", conductor: "c", length_m: 1e-200 }] };
+    const r2 = await postRaw("bus-network", JSON.stringify(tinyLength));
+    expect(r2.status).toBe(400);
+    expect(r2.json.error.fields["segments.0.length_m"]).toMatch(/length must be from 0.0001 to 10000 m/);
+  });
 });
