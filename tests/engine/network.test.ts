@@ -283,7 +283,7 @@ describe("bus network: named errors and warnings", () => {
     const base = ladder("dc");
     expect(fieldOf({ ...base, nodes: [...base.nodes, { id: "A" }] })).toMatch(/^nodes\.6\.id: node id "A" is used twice/);
     expect(fieldOf({ ...base, segments: [...base.segments, seg("Z", "A", "Q", 1)] })).toMatch(/^segments\.6\.to: to node "Q" is not in the node list/);
-    expect(fieldOf({ ...base, segments: [...base.segments, seg("Z", "A", "B", 0)] })).toMatch(/^segments\.6\.length_m: length must be greater than 0/);
+    expect(fieldOf({ ...base, segments: [...base.segments, seg("Z", "A", "B", 0)] })).toMatch(/^segments\.6\.length_m: length must be from 0.0001 to 10000 m/);
     expect(fieldOf({ ...base, segments: [...base.segments, seg("Z", "A", "B", 1, "steel")] })).toMatch(/^segments\.6\.conductor: conductor "steel"/);
     expect(fieldOf({ ...base, segments: [...base.segments, seg("SA", "A", "B", 1)] })).toMatch(/^segments\.6\.id: segment id "SA" is used twice/);
     expect(fieldOf({ ...base, loads: [{ node: "A", current_A: -1 }] })).toMatch(/^loads\.0\.current_A: load current must be from 0/);
