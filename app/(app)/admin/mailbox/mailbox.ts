@@ -12,7 +12,8 @@ export async function requireMailbox(): Promise<{ actor: Actor; dir: string }> {
   const e = env();
   if (!e.FAKE_SMTP) notFound();
   const actor = await requirePageActor("mailbox.read");
-  return { actor, dir: path.resolve(process.cwd(), e.FAKE_MAILBOX_DIR) };
+  // The mailbox folder is runtime data, not part of the build: keep it out of file tracing.
+  return { actor, dir: path.resolve(/*turbopackIgnore: true*/ process.cwd(), e.FAKE_MAILBOX_DIR) };
 }
 
 export const formatUtc = (d: Date | string) => `${new Date(d).toISOString().slice(0, 19).replace("T", " ")} UTC`;
