@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb } from "@/db/client";
 import { POST as runKind } from "@/app/api/v1/calc/[kind]/route";
 import { CALC_EXAMPLES } from "@/app/api/v1/calc/examples";
-import { CALC_KIND_NAMES, type CalcKindName } from "@/lib/engine";
+import { CALC_KIND_NAMES } from "@/lib/engine";
 import { call, tokenFor } from "../support/api";
 import { makeOrg, makeUser } from "../support/db";
 

@@ -62,6 +62,10 @@ describe("diffJson", () => {
       fc.property(fc.dictionary(fc.string({ minLength: 1, maxLength: 3 }).filter((k) => !k.includes(".") && k !== "__proto__"), fc.jsonValue({ maxDepth: 2 })), fc.dictionary(fc.string({ minLength: 1, maxLength: 3 }).filter((k) => !k.includes(".") && k !== "__proto__"), fc.jsonValue({ maxDepth: 2 })), (x, y) => {
         const nx = JSON.parse(JSON.stringify(x)) as Record<string, unknown>;
         const ny = JSON.parse(JSON.stringify(y)) as Record<string, unknown>;
+        // The precondition holds at every depth, not only for the top-level keys.
+        const keysOk = (v: unknown): boolean =>
+          Array.isArray(v) ? v.every(keysOk) : v && typeof v === "object" ? Object.entries(v).every(([k, w]) => k !== "" && !k.includes(".") && keysOk(w)) : true;
+        fc.pre(keysOk(nx) && keysOk(ny));
         const at = (root: unknown, path: string): unknown =>
           path === "" ? root : path.split(".").reduce<unknown>((v, k) => (v && typeof v === "object" ? (v as Record<string, unknown>)[k] : undefined), root);
         for (const c of diffJson(nx, ny)) {
