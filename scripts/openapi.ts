@@ -289,7 +289,7 @@ interface Op {
   params?: Json[];
   body?: Json;
   example?: unknown;
-  ok: { status: string; description: string; schema: Json };
+  ok: { status: string; description: string; schema: Json; contentType?: string };
   errors: string[];
   tag: string;
 }
@@ -297,7 +297,7 @@ interface Op {
 function operation(id: string, op: Op): Json {
   const roles = op.permission ? [...PERMISSIONS[op.permission]] : [];
   const responses: Json = {
-    [op.ok.status]: { description: op.ok.description, content: { "application/json": { schema: op.ok.schema } } },
+    [op.ok.status]: { description: op.ok.description, content: { [op.ok.contentType ?? "application/json"]: { schema: op.ok.schema } } },
   };
   for (const name of op.errors) {
     const e = ERROR_RESPONSES.find((r) => r.name === name);
@@ -536,6 +536,38 @@ function sheetPaths(): Json {
         params: [sheetId, pathParam("ordinal", "Revision ordinal: 0 for the first revision", { type: "integer", minimum: 0 })],
         ok: { status: "200", description: "The revision", schema: { type: "object", required: ["revision"], properties: { revision: ref("Revision") } } },
         errors: ["NotFound", ...AUTH_ERRORS],
+      }),
+    },
+    "/api/v1/sheets/{id}/pdf": {
+      get: operation("getSheetPdf", {
+        tag: "Sheets",
+        summary: "The calculation sheet as a PDF (latest revision, or ?rev=<ordinal>)",
+        description: "An approved revision carries the approval stamp with its verification code and a QR code to /verify/<code>; any other revision prints a DRAFT watermark and no stamp.",
+        permission: "sheet.read",
+        params: [sheetId, { name: "rev", in: "query", required: false, description: "Revision ordinal (0 for the first); the latest when absent", schema: { type: "integer", minimum: 0 } }],
+        ok: { status: "200", description: "The PDF", schema: { type: "string", format: "binary" }, contentType: "application/pdf" },
+        errors: ["BadRequest", "NotFound", ...AUTH_ERRORS],
+      }),
+    },
+    "/api/v1/projects/{id}/package": {
+      post: operation("issuePackage", {
+        tag: "Projects",
+        summary: "Issue the project's calculation package: every current approved sheet in one stored PDF",
+        description: "The package is stored byte for byte with its SHA-256, so it can be downloaded again exactly as issued. With includeDrafts, sheets without an approved revision are added with a DRAFT watermark.",
+        permission: "project.write",
+        params: [projectId],
+        body: { type: "object", properties: { includeDrafts: { type: "boolean", default: false } } },
+        example: { includeDrafts: false },
+        ok: { status: "201", description: "The stored package", schema: { type: "object", additionalProperties: true } },
+        errors: ["BadRequest", "NotFound", ...AUTH_ERRORS],
+      }),
+      get: operation("downloadPackage", {
+        tag: "Projects",
+        summary: "Download an issued package exactly as issued (?upload=<id>); the x-content-sha256 header carries its hash",
+        permission: "project.read",
+        params: [projectId, { name: "upload", in: "query", required: true, description: "Id of the issued package", schema: idInt }],
+        ok: { status: "200", description: "The PDF as issued", schema: { type: "string", format: "binary" }, contentType: "application/pdf" },
+        errors: ["BadRequest", "NotFound", ...AUTH_ERRORS],
       }),
     },
     "/api/v1/sheets/{id}/transitions": {

@@ -14,6 +14,7 @@ import { listProjectSheets } from "@/lib/sheets/reads";
 import { ArchiveButton } from "./archive-button";
 import { AuditHistory } from "./audit-history";
 import { loadProjectOr404 } from "./load";
+import { PackagePanel } from "./package-panel";
 
 export const metadata: Metadata = { title: "Project" };
 
@@ -100,6 +101,8 @@ export default async function ProjectPage({ params }: { params: Promise<{ id: st
         </h2>
         <ProjectSheetsTable rows={sheetRows} caption={`Calculation sheets of ${project.code}`} />
       </section>
+
+      <PackagePanel projectId={project.id} organisationId={actor.organisationId} canIssue={can(actor.role, "project.write") && !archived} />
 
       <div className="grid gap-6 lg:grid-cols-3">
         <div className="space-y-6 lg:col-span-2">

@@ -59,11 +59,16 @@ export default async function SheetPage({ params, searchParams }: { params: Prom
           </>
         }
         actions={
-          sheet.revisions.length > 1 ? (
-            <Link href={`${base}/revisions`} className="btn-secondary">
-              Compare revisions
-            </Link>
-          ) : undefined
+          <>
+            <a href={`/api/v1/sheets/${sheet.id}/pdf?rev=${shown.ordinal}`} className="btn-secondary" download>
+              Download PDF
+            </a>
+            {sheet.revisions.length > 1 ? (
+              <Link href={`${base}/revisions`} className="btn-secondary">
+                Compare revisions
+              </Link>
+            ) : null}
+          </>
         }
       />
 

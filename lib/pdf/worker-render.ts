@@ -1,0 +1,62 @@
+import path from "node:path";
+import { Worker } from "node:worker_threads";
+import type { PdfNode } from "./tree";
+
+/**
+ * Renders PDF trees in one long-lived worker thread (lib/pdf/render-worker.mjs, plain
+ * ESM that needs no TypeScript loader), so the main thread stays free for other
+ * requests while a package of many sheets is laid out, and fonts are parsed once.
+ * Jobs queue in the worker one after another. The entry is located from the working
+ * directory (the app's root, where `next start` runs). The worker is unref'd: it never
+ * keeps the process alive; if it dies, the next job starts a new one.
+ */
+type Reply = { id: number; pdf?: ArrayBuffer; marks?: Record<string, number>; error?: string };
+type Pending = { resolve: (v: { pdf: Buffer; marks: Record<string, number> }) => void; reject: (e: Error) => void };
+
+let worker: Worker | null = null;
+let nextId = 1;
+const pending = new Map<number, Pending>();
+
+export function workerEntry(root = process.cwd()): string {
+  return path.join(root, "lib", "pdf", "render-worker.mjs");
+}
+
+function failAll(err: Error) {
+  for (const p of pending.values()) p.reject(err);
+  pending.clear();
+  worker = null;
+}
+
+function getWorker(root: string): Worker {
+  if (worker) return worker;
+  const w = new Worker(workerEntry(root));
+  w.unref();
+  w.on("message", (m: Reply) => {
+    const p = pending.get(m.id);
+    if (!p) return;
+    pending.delete(m.id);
+    if (m.error || !m.pdf) p.reject(new Error(`PDF worker failed: ${m.error ?? "no output"}`));
+    else p.resolve({ pdf: Buffer.from(m.pdf), marks: m.marks ?? {} });
+  });
+  w.on("error", (err) => failAll(err instanceof Error ? err : new Error(String(err))));
+  w.on("exit", (code) => {
+    if (worker === w) failAll(new Error(`PDF worker stopped (exit code ${code})`));
+  });
+  worker = w;
+  return w;
+}
+
+export function renderInWorker(tree: PdfNode, root = process.cwd()): Promise<{ pdf: Buffer; marks: Record<string, number> }> {
+  return new Promise((resolve, reject) => {
+    const id = nextId++;
+    pending.set(id, { resolve, reject });
+    getWorker(root).postMessage({ id, tree, root });
+  });
+}
+
+/** Stops the worker (tests and benchmarks that want a clean exit or a cold start). */
+export async function stopPdfWorker(): Promise<void> {
+  const w = worker;
+  worker = null;
+  if (w) await w.terminate();
+}
