@@ -288,13 +288,29 @@ export function temperatureCurve(p: PreparedBusbar, currents_A: readonly number[
 }
 
 /** Warnings for the correlations and the air table at surface temperature θ. */
+/** Below this share of the heat, an out-of-range surface is reported in one summary warning. */
+const MINOR_SURFACE_SHARE = 0.1;
+
 export function heatBalanceWarnings(p: PreparedBusbar, theta_C: number): Warning[] {
   const out: Warning[] = [];
   const loss = heatLossPerMetre(p, theta_C);
+  // Surfaces outside their correlation's range: named one by one when they matter; the
+  // narrow edges of a bar (a few per cent of the heat) are reported together, with their share.
+  const minor: { label: string; share: number }[] = [];
   for (const s of loss.surfaces) {
     if (s.correlation === "vertical-channel") continue;
     const w = rangeWarning(s.correlation, s.Ra, s.label);
-    if (w) out.push(w);
+    if (!w) continue;
+    const share = loss.total_W_m > 0 ? s.loss_W_m / loss.total_W_m : 0;
+    if (share < MINOR_SURFACE_SHARE) minor.push({ label: s.label, share });
+    else out.push(w);
+  }
+  if (minor.length > 0) {
+    const total = minor.reduce((a, m) => a + m.share, 0);
+    out.push({
+      code: "convection-minor-surfaces-extrapolated",
+      message: `${minor.map((m) => m.label).join(" and ")}: too small for the range of the horizontal-plate correlations (Incropera 6th ed. eqs. 9.30–9.32), which are extrapolated there; together they shed ${(100 * total).toFixed(1)} % of the heat`,
+    });
   }
   if (loss.filmTemperature_K < AIR_TABLE_MIN_K || loss.filmTemperature_K > AIR_TABLE_MAX_K)
     out.push({ code: "air-table-extrapolated", message: `film temperature ${loss.filmTemperature_K.toFixed(0)} K is outside the air property table (${AIR_TABLE_MIN_K}–${AIR_TABLE_MAX_K} K); properties are extrapolated` });

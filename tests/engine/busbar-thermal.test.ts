@@ -129,9 +129,13 @@ describe("busbar rating calculation", () => {
     expect(r.results.rac_ohm_m / r.results.rdc_ohm_m).toBeCloseTo(r.results.acRatio, 12);
   });
 
-  it("warns about the small edges whose Ra is below the horizontal-plate range", () => {
+  it("warns once about the small edges whose Ra is below the horizontal-plate range, with their share of the heat", () => {
     const r = calcBusbarRating({ ...base, current_A: 1000 });
-    expect(r.warnings.some((w) => w.code === "convection-ra-out-of-range" && /edges/.test(w.message))).toBe(true);
+    const edgeWarnings = r.warnings.filter((w) => /edges/.test(w.message));
+    expect(edgeWarnings).toHaveLength(1);
+    expect(edgeWarnings[0]!.code).toBe("convection-minor-surfaces-extrapolated");
+    expect(edgeWarnings[0]!.message).toMatch(/top edges and bottom edges: .* together they shed \d+\.\d % of the heat/);
+    expect(r.warnings.some((w) => w.code === "convection-ra-out-of-range" && /edges/.test(w.message))).toBe(false);
   });
 
   it("the curve starts at ambient and rises with current", () => {
