@@ -1,10 +1,15 @@
-// Demo data: an invented panel-building company with one user per role and three projects.
+// Demo data: an invented panel-building company with one user per role, three projects, and
+// calculation sheets on the first project in each review state (approved, in review, draft).
 // Usage: npm run db:seed   (idempotent: does nothing when the demo organisation exists)
 import { pathToFileURL } from "node:url";
 import { eq } from "drizzle-orm";
 import type { Db } from "../db/client";
-import { organisations, projects, users, type Role } from "../db/schema";
+import type { Tx } from "../db/client";
+import { organisations, projects, sheetRevisions, sheets, users, type Role, type SheetStatus } from "../db/schema";
 import { audit } from "../lib/audit";
+import { runCalc, ENGINE_VERSION } from "../lib/engine";
+import { contentHash } from "../lib/hash";
+import { defaultInputs, type ProjectBasis } from "../lib/sheets/kinds";
 import { hashPassword } from "../lib/auth/password";
 import { loadEnvFile } from "./load-env";
 
@@ -97,11 +102,23 @@ export async function seedDemo(database: Db): Promise<SeedResult> {
       userIds.set(u.role, row!.id);
     }
     const leadId = userIds.get("lead")!;
-    for (const p of DEMO_PROJECTS) {
+    for (const [index, p] of DEMO_PROJECTS.entries()) {
       const [row] = await tx
         .insert(projects)
         .values({ ...p, organisationId: orgId, createdById: leadId })
         .$returningId();
+      if (index === 0) {
+        const basis: ProjectBasis = {
+          unitSystem: p.unitSystem,
+          systemVoltage: p.systemVoltage,
+          systemType: p.systemType,
+          frequency: p.frequency,
+          designAmbientC: p.designAmbient,
+          altitudeM: p.altitude,
+          standardFamily: p.standardFamily,
+        };
+        await seedDemoSheets(tx, orgId, row!.id, basis, { engineer: userIds.get("engineer")!, lead: leadId });
+      }
       await audit(tx, {
         organisationId: orgId,
         actorId: leadId,
@@ -114,6 +131,48 @@ export async function seedDemo(database: Db): Promise<SeedResult> {
     return orgId;
   });
   return { created: true, organisationId, users: DEMO_USERS };
+}
+
+/** The demo sheets of the first project: inputs start from the project's defaults with a few design values of our own scenario. */
+export const DEMO_SHEETS: readonly { kind: string; tag: string; title: string; status: SheetStatus; tweak: Record<string, unknown> }[] = [
+  { kind: "busbar-rating", tag: "BR-01", title: "Main horizontal busbar, 2500 A incomer section", status: "approved", tweak: { current_A: 2500 } },
+  { kind: "fault-withstand", tag: "FW-01", title: "Main busbar short-circuit withstand, 50 kA 1 s", status: "approved", tweak: {} },
+  { kind: "voltage-drop", tag: "VD-01", title: "Feeder to loading-bay distribution board DB-L1", status: "in_review", tweak: {} },
+  { kind: "enclosure-heat", tag: "EH-01", title: "Incomer section heat budget", status: "draft", tweak: {} },
+];
+
+async function seedDemoSheets(tx: Tx, orgId: number, projectId: number, basis: ProjectBasis, who: { engineer: number; lead: number }) {
+  for (const [position, d] of DEMO_SHEETS.entries()) {
+    const inputs = { ...defaultInputs(d.kind, basis), ...d.tweak };
+    const run = runCalc(d.kind, inputs);
+    if (!run.ok) throw new Error(`seed: demo sheet ${d.tag} has invalid inputs: ${JSON.stringify(run.fields)}`);
+    const results = run.result as unknown as Record<string, unknown>;
+    const [sheet] = await tx
+      .insert(sheets)
+      .values({ organisationId: orgId, projectId, kind: d.kind, tag: d.tag, title: d.title, position, createdById: who.engineer })
+      .$returningId();
+    const decided = d.status === "approved" ? new Date() : null;
+    await tx.insert(sheetRevisions).values({
+      organisationId: orgId,
+      sheetId: sheet!.id,
+      ordinal: 0,
+      label: "A",
+      status: d.status,
+      inputs,
+      results,
+      engineVersion: ENGINE_VERSION,
+      contentHash: contentHash(inputs, results, ENGINE_VERSION),
+      authorId: who.engineer,
+      checkedById: d.status === "approved" ? who.lead : null,
+      submittedAt: d.status === "draft" ? null : new Date(),
+      decidedAt: decided,
+    });
+    await audit(tx, { organisationId: orgId, actorId: who.engineer, event: "sheet.created", entityType: "sheet", entityId: sheet!.id, details: { tag: d.tag, label: "A", seeded: true } });
+    if (d.status !== "draft")
+      await audit(tx, { organisationId: orgId, actorId: who.engineer, event: "sheet.submitted", entityType: "sheet", entityId: sheet!.id, details: { transition: "submit", label: "A", seeded: true } });
+    if (d.status === "approved")
+      await audit(tx, { organisationId: orgId, actorId: who.lead, event: "sheet.approved", entityType: "sheet", entityId: sheet!.id, details: { transition: "approve", label: "A", seeded: true } });
+  }
 }
 
 function printSignIns(result: SeedResult) {

@@ -1,16 +1,25 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { count, eq } from "drizzle-orm";
 import { closeDb, db } from "@/db/client";
-import { auditEvents, organisations, projects, users } from "@/db/schema";
+import { auditEvents, organisations, projects, sheetRevisions, sheets, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import { toProjectFormValues } from "@/lib/validation/project";
-import { DEMO_USERS, seedDemo } from "../../scripts/seed";
+import { ENGINE_VERSION } from "@/lib/engine";
+import { contentHash } from "@/lib/hash";
+import { DEMO_SHEETS, DEMO_USERS, seedDemo } from "../../scripts/seed";
 import { resetDb } from "../support/db";
 
 async function counts() {
-  const n = async (t: typeof organisations | typeof users | typeof projects | typeof auditEvents) =>
+  const n = async (t: typeof organisations | typeof users | typeof projects | typeof auditEvents | typeof sheets | typeof sheetRevisions) =>
     (await db().select({ n: count() }).from(t))[0]!.n;
-  return { organisations: await n(organisations), users: await n(users), projects: await n(projects), audit: await n(auditEvents) };
+  return {
+    organisations: await n(organisations),
+    users: await n(users),
+    projects: await n(projects),
+    sheets: await n(sheets),
+    revisions: await n(sheetRevisions),
+    audit: await n(auditEvents),
+  };
 }
 
 describe("demo seed", () => {
@@ -21,11 +30,12 @@ describe("demo seed", () => {
     await closeDb();
   });
 
-  it("creates one organisation, one user per role and three projects, then does nothing the second time", async () => {
+  it("creates one organisation, one user per role, three projects and four sheets, then does nothing the second time", async () => {
     const first = await seedDemo(db());
     expect(first.created).toBe(true);
     const after = await counts();
-    expect(after).toEqual({ organisations: 1, users: 4, projects: 3, audit: 3 });
+    // Audit: 3 projects created; 4 sheets created, 3 submitted, 2 approved.
+    expect(after).toEqual({ organisations: 1, users: 4, projects: 3, sheets: 4, revisions: 4, audit: 12 });
 
     const second = await seedDemo(db());
     expect(second.created).toBe(false);
@@ -54,6 +64,20 @@ describe("demo seed", () => {
     for (const r of rows) {
       const parsed = projectSchema.safeParse(toProjectFormValues({ ...r, designAmbientC: r.designAmbient, altitudeM: r.altitude }));
       expect(parsed.success, r.code).toBe(true);
+    }
+  });
+
+  it("seeds sheets in each review state whose stored results are the engine's own for their inputs", async () => {
+    const rows = await db()
+      .select({ tag: sheets.tag, kind: sheets.kind, status: sheetRevisions.status, inputs: sheetRevisions.inputs, results: sheetRevisions.results, hash: sheetRevisions.contentHash, engine: sheetRevisions.engineVersion, checkedById: sheetRevisions.checkedById, authorId: sheetRevisions.authorId })
+      .from(sheets)
+      .innerJoin(sheetRevisions, eq(sheetRevisions.sheetId, sheets.id));
+    expect(rows.map((r) => [r.tag, r.status]).sort()).toEqual(DEMO_SHEETS.map((d) => [d.tag, d.status]).sort());
+    for (const r of rows) {
+      expect(r.engine).toBe(ENGINE_VERSION);
+      expect(r.hash).toBe(contentHash(r.inputs, r.results, ENGINE_VERSION));
+      expect((r.results as { kind?: string }).kind).toBe(r.kind);
+      if (r.status === "approved") expect(r.checkedById).not.toBe(r.authorId);
     }
   });
 });
