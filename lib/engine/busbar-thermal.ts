@@ -458,7 +458,7 @@ export function calcBusbarRating(input: BusbarRatingInput): CalcResult<BusbarRat
   warnings.push(...heatBalanceWarnings(prep, opTheta));
   if (v.maxTemperature_C !== undefined && v.current_A !== undefined) {
     // Also the limit point, when it differs (correlations may leave their range there).
-    for (const w of heatBalanceWarnings(withAcRatio(base[governing]!, gp.acRatio), v.maxTemperature_C)) if (!warnings.some((x) => x.message === w.message)) warnings.push(w);
+    for (const w of heatBalanceWarnings(withAcRatio(base[governing]!, gp.acRatio), v.maxTemperature_C)) if (!warnings.some((x) => x.code === w.code && (x.message === w.message || w.code === "convection-minor-surfaces-extrapolated"))) warnings.push(w);
   }
   if (v.emissivity !== undefined) warnings.push({ code: "emissivity-override", message: `emissivity set to ${v.emissivity} instead of the ${v.finish} value ${finishEmissivity(m.metal, v.finish as SurfaceFinish)}` });
   if (arr.orientation === "flat" && arr.barsPerPhase > 1)

@@ -29,7 +29,9 @@ function failAll(err: Error) {
 
 function getWorker(root: string): Worker {
   if (worker) return worker;
-  const w = new Worker(workerEntry(root));
+  // Constructed indirectly: the bundler rewrites a literal `new Worker(…)` into its own
+  // module loading, but this entry is a plain ESM file loaded by Node at run time.
+  const w = Reflect.construct(Worker, [workerEntry(root)]) as Worker;
   w.unref();
   w.on("message", (m: Reply) => {
     const p = pending.get(m.id);
