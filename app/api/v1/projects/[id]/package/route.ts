@@ -38,7 +38,8 @@ export const POST = guardedRoute<{ id: string }>({ permission: "project.write" }
     includeDrafts = parsed.data.includeDrafts;
   }
   const issued = await issuePackage(actor, params.id, { includeDrafts });
-  if (isForm) return Response.redirect(new URL(`/projects/${params.id}?package=${issued.uploadId}#packages`, req.url), 303);
+  // A relative Location (RFC 9110 §10.2.2): the browser stays on the host it used, with its session cookie.
+  if (isForm) return new Response(null, { status: 303, headers: { location: `/projects/${params.id}?package=${issued.uploadId}#packages` } });
   return Response.json(issued, { status: 201 });
 });
 
