@@ -6,6 +6,7 @@ const EVENT_LABELS: Partial<Record<ProjectAuditEntry["event"], string>> = {
   "project.updated": "Saved changes",
   "project.archived": "Archived the project",
   "project.restored": "Restored the project",
+  "package.issued": "Issued a calculation package",
 };
 
 const FIELD_LABELS: Record<string, string> = {
