@@ -192,7 +192,7 @@ async function main() {
     const result = await seedDemo(db());
     console.log(
       result.created
-        ? `seed: created ${DEMO_ORGANISATION.name} with ${DEMO_USERS.length} users and ${DEMO_PROJECTS.length} projects.`
+        ? `seed: created ${DEMO_ORGANISATION.name} with ${DEMO_USERS.length} users and ${DEMO_PROJECTS.length} projects (${DEMO_SHEETS.length} calculation sheets on ${DEMO_PROJECTS[0].code}).`
         : `seed: ${DEMO_ORGANISATION.name} already exists; nothing changed.`,
     );
     console.log(`\nDemo sign-ins${result.created ? "" : " (as first seeded; unchanged unless someone changed them)"} — demo only, change or remove these users before real use:\n`);
