@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import Link from "next/link";
 import type { ReactNode } from "react";
 import { DateTime } from "@/components/ui/date-time";
@@ -57,13 +58,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ id: st
 
   return (
     <>
-      <nav aria-label="Breadcrumb" className="mb-3 text-sm text-fen-500">
-        <Link href="/projects" className="hover:text-fen-800 hover:underline">
-          Projects
-        </Link>
-        <span aria-hidden="true" className="mx-2">/</span>
-        <span className="font-mono text-fen-700">{project.code}</span>
-      </nav>
+      <Breadcrumbs items={[{ label: "Projects", href: "/projects" }, { label: project.code, mono: true }]} />
       <PageHeader
         eyebrow={
           <span className="inline-flex items-center gap-2">

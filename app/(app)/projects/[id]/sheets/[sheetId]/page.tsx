@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import Link from "next/link";
 import { SheetEditor } from "@/components/sheets/editor/sheet-editor";
 import { SheetStatusBadge } from "@/components/sheets/editor/status";
@@ -37,17 +38,7 @@ export default async function SheetPage({ params, searchParams }: { params: Prom
 
   return (
     <>
-      <nav aria-label="Breadcrumb" className="mb-3 text-sm text-fen-500">
-        <Link href="/projects" className="hover:text-fen-800 hover:underline">
-          Projects
-        </Link>
-        <span aria-hidden="true" className="mx-2">/</span>
-        <Link href={`/projects/${project.id}`} className="font-mono hover:text-fen-800 hover:underline">
-          {project.code}
-        </Link>
-        <span aria-hidden="true" className="mx-2">/</span>
-        <span className="font-mono text-fen-700">{sheet.tag}</span>
-      </nav>
+      <Breadcrumbs items={[{ label: "Projects", href: "/projects" }, { label: project.code, href: `/projects/${project.id}`, mono: true }, { label: sheet.tag, mono: true }]} />
       <PageHeader
         eyebrow={`${sheet.tag} · ${sheetKindName(sheet.kind)}`}
         title={sheet.title}

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader } from "@/components/ui/page-header";
 import { requirePageActor } from "@/lib/auth/guard";
 import { isCalcKind } from "@/lib/engine";
@@ -19,17 +19,7 @@ export default async function NewSheetPage({ params, searchParams }: { params: P
 
   return (
     <>
-      <nav aria-label="Breadcrumb" className="mb-3 text-sm text-fen-500">
-        <Link href="/projects" className="hover:text-fen-800 hover:underline">
-          Projects
-        </Link>
-        <span aria-hidden="true" className="mx-2">/</span>
-        <Link href={`/projects/${project.id}`} className="font-mono hover:text-fen-800 hover:underline">
-          {project.code}
-        </Link>
-        <span aria-hidden="true" className="mx-2">/</span>
-        <span className="text-fen-700">New sheet</span>
-      </nav>
+      <Breadcrumbs items={[{ label: "Projects", href: "/projects" }, { label: project.code, href: `/projects/${project.id}`, mono: true }, { label: "New sheet" }]} />
       <PageHeader eyebrow={project.code} title="New calculation sheet" description="Choose what to calculate; the sheet starts from the project's voltage, frequency, ambient and standard family." />
       {project.archivedAt ? (
         <p role="status" className="rounded-lg border border-fen-200 bg-fen-100 px-4 py-3 text-sm text-fen-700">

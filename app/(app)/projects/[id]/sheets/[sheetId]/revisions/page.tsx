@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import Link from "next/link";
 import { SheetStatusBadge } from "@/components/sheets/editor/status";
 import { PageHeader } from "@/components/ui/page-header";
@@ -101,21 +102,14 @@ export default async function RevisionsPage({ params, searchParams }: { params: 
 
   return (
     <>
-      <nav aria-label="Breadcrumb" className="mb-3 text-sm text-fen-500">
-        <Link href="/projects" className="hover:text-fen-800 hover:underline">
-          Projects
-        </Link>
-        <span aria-hidden="true" className="mx-2">/</span>
-        <Link href={`/projects/${project.id}`} className="font-mono hover:text-fen-800 hover:underline">
-          {project.code}
-        </Link>
-        <span aria-hidden="true" className="mx-2">/</span>
-        <Link href={base} className="font-mono hover:text-fen-800 hover:underline">
-          {sheet.tag}
-        </Link>
-        <span aria-hidden="true" className="mx-2">/</span>
-        <span className="text-fen-700">Revisions</span>
-      </nav>
+      <Breadcrumbs
+        items={[
+          { label: "Projects", href: "/projects" },
+          { label: project.code, href: `/projects/${project.id}`, mono: true },
+          { label: sheet.tag, href: base, mono: true },
+          { label: "Revisions" },
+        ]}
+      />
       <PageHeader eyebrow={`${sheet.tag} · ${sheetKindName(sheet.kind)}`} title={`Compare revisions of ${sheet.title}`} />
 
       <form method="get" className="panel mb-6 flex flex-wrap items-end gap-4 p-4">
