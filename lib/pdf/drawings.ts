@@ -13,7 +13,21 @@ import { colour, font } from "./styles";
  * the voltage along a feeder and the current shares of parallel paths.
  */
 const r2 = (x: number) => Math.round(x * 100) / 100;
-const line = (s: Segment, p: Record<string, unknown>) => h("Line", { x1: r2(s.x1), y1: r2(s.y1), x2: r2(s.x2), y2: r2(s.y2), ...p });
+/**
+ * Line segments of one stroke style as a single path (one primitive for the library to
+ * lay out and draw instead of one per segment; dashes restart on each segment as before).
+ */
+function lines(segs: Segment[], p: Record<string, unknown>): PdfNode | null {
+  if (segs.length === 0) return null;
+  return h("Path", { d: segs.map((s) => `M${r2(s.x1)} ${r2(s.y1)}L${r2(s.x2)} ${r2(s.y2)}`).join(""), fill: "none", ...p });
+}
+
+/** Filled polygons ("x,y x,y …" point lists) of one colour as a single path. */
+function polygons(points: string[], p: Record<string, unknown>): PdfNode | null {
+  if (points.length === 0) return null;
+  const d = points.map((pts) => `M${pts.trim().split(/\s+/).map((xy) => xy.replace(",", " ")).join("L")}Z`).join("");
+  return h("Path", { d, ...p });
+}
 
 function svgText(m: Pick<TextMark, "x" | "y" | "text" | "size" | "rotate" | "anchor">, p: Record<string, unknown> = {}): PdfNode {
   return h(
@@ -62,16 +76,16 @@ export function crossSectionDrawing(arr: BarArrangement, units: UnitSystem, maxW
     "Svg",
     { width: r2(vb.w * scale), height: r2(vb.h * scale), viewBox: `${r2(vb.x)} ${r2(vb.y)} ${r2(vb.w)} ${r2(vb.h)}` },
     L.bars.map((b) => h("Rect", { x: r2(b.x), y: r2(b.y), width: r2(b.w), height: r2(b.h), fill: colour.metal, stroke: colour.metalEdge, strokeWidth: r2(0.12 * L.u) })),
-    L.centreLines.map((s) => line(s, { stroke: colour.faint, strokeWidth: r2(hair), strokeDasharray: `${r2(1.6 * L.u)} ${r2(0.5 * L.u)}` })),
-    L.dimensions.map((d) =>
-      h(
-        "G",
-        null,
-        [...d.extensions, d.line, ...d.tails].map((s) => line(s, { stroke: colour.muted, strokeWidth: r2(hair) })),
-        d.arrows.map((a) => h("Polygon", { points: a, fill: colour.muted })),
-        svgText(d.label),
-      ),
+    lines(L.centreLines, { stroke: colour.faint, strokeWidth: r2(hair), strokeDasharray: `${r2(1.6 * L.u)} ${r2(0.5 * L.u)}` }),
+    lines(
+      L.dimensions.flatMap((d) => [...d.extensions, d.line, ...d.tails]),
+      { stroke: colour.muted, strokeWidth: r2(hair) },
     ),
+    polygons(
+      L.dimensions.flatMap((d) => d.arrows),
+      { fill: colour.muted },
+    ),
+    L.dimensions.map((d) => svgText(d.label)),
     L.phaseLabels.map((m) => svgText(m, { fontWeight: 600 })),
     L.scaleBar.segments.map((b, i) => h("Rect", { x: r2(b.x), y: r2(b.y), width: r2(b.w), height: r2(b.h), fill: i % 2 === 0 ? colour.text : colour.paper, stroke: colour.text, strokeWidth: r2(hair) })),
     L.scaleBar.labels.map((m) => svgText(m)),
@@ -109,8 +123,10 @@ function lineChart(o: { x: Axis; y: Axis; series: ChartSeries[]; limit?: { y: nu
   return h(
     "Svg",
     { width: W, height: H, viewBox: `0 0 ${W} ${H}` },
-    o.y.ticks.map((t) => h("Line", { x1: m.l, x2: m.l + pw, y1: Y(t), y2: Y(t), stroke: colour.grid, strokeWidth: 0.5 })),
-    o.x.ticks.map((t) => h("Line", { x1: X(t), x2: X(t), y1: m.t, y2: m.t + ph, stroke: colour.grid, strokeWidth: 0.5 })),
+    lines(
+      [...o.y.ticks.map((t) => ({ x1: m.l, x2: m.l + pw, y1: Y(t), y2: Y(t) })), ...o.x.ticks.map((t) => ({ x1: X(t), x2: X(t), y1: m.t, y2: m.t + ph }))],
+      { stroke: colour.grid, strokeWidth: 0.5 },
+    ),
     h("Rect", { x: m.l, y: m.t, width: pw, height: ph, fill: "none", stroke: colour.axis, strokeWidth: 0.75 }),
     o.y.ticks.map((t) => label(m.l - 4, Y(t) + 2.5, tick(t), "end")),
     o.x.ticks.map((t) => label(X(t), m.t + ph + 10, tick(t), "middle")),

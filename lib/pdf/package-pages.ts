@@ -8,8 +8,10 @@ import type { PdfOrganisation, PdfProject, SheetPdfData } from "./types";
 /**
  * The calculation package: a cover, the revision and status table, an index with page
  * numbers, every included sheet in project order, and the basis and cautions page.
- * Page numbers come from a first rendering (marks record where each part starts);
- * the second rendering prints them.
+ * Page numbers: marks record where each part starts; the index prints them in the same
+ * rendering (live page references, filled in once every page is split). Should what the
+ * index printed ever differ from where the parts landed, the package is rendered again
+ * with the numbers fixed (see renderPackage).
  */
 export interface PackageInfo {
   organisation: PdfOrganisation;
@@ -98,9 +100,20 @@ function statusTable(p: PackageInfo): PdfNode {
   );
 }
 
-/** The index; `pages` maps marks to page numbers (placeholders in the first rendering). */
+const PAGE_COLUMN = { width: 50, textAlign: "right", fontWeight: 600 } as const;
+
+/**
+ * A live page reference, placed absolutely over a blank line of the cell: react-pdf
+ * drops a render-prop text that flows in a row under an inherited line height, and the
+ * blank line keeps the row exactly as tall as with a written number.
+ */
+function livePageRef(mark: string): PdfNode {
+  return view({ width: PAGE_COLUMN.width }, text({}, " "), h("PageRef", { id: mark, style: { ...PAGE_COLUMN, position: "absolute", top: 0, left: 0 } }));
+}
+
+/** The index; `pages` maps marks to page numbers, or null for live page references. */
 function index(p: PackageInfo, pages: Record<string, number> | null): PdfNode {
-  const pageOf = (mark: string) => (pages ? String(pages[mark] ?? "—") : "000");
+  const pageOf = (mark: string) => (pages ? text(PAGE_COLUMN, String(pages[mark] ?? "—")) : livePageRef(mark));
   const row = (tag: string, title: string, rev: string, mark: string) =>
     h(
       "View",
@@ -108,7 +121,7 @@ function index(p: PackageInfo, pages: Record<string, number> | null): PdfNode {
       text({ width: 60, fontFamily: font.mono }, tag),
       text({ flexGrow: 1, flexBasis: 0 }, title),
       text({ width: 40, fontFamily: font.mono }, rev),
-      text({ width: 50, textAlign: "right", fontWeight: 600 }, pageOf(mark)),
+      pageOf(mark),
     );
   return h(
     "Page",
@@ -149,7 +162,12 @@ function basis(p: PackageInfo): PdfNode {
   );
 }
 
-/** The whole package as one Document tree. */
+/** The marks the index refers to: every sheet's, then the basis page's. */
+export function indexMarks(p: PackageInfo): string[] {
+  return [...p.sheets.map(sheetMark), BASIS_MARK];
+}
+
+/** The whole package as one Document tree (`pages` null: the index refers to the marks live). */
 export function packageDocument(p: PackageInfo, pages: Record<string, number> | null): PdfNode {
   return h(
     "Document",

@@ -7,16 +7,18 @@ import { getRevision, getSheet, listProjectSheets } from "@/lib/sheets/reads";
 import { parseInput } from "@/lib/sheets/common";
 import { idField } from "@/lib/sheets/schemas";
 import { pdfOrganisation, pdfProject, toSheetPdfData } from "./load";
-import { packageDocument, type PackageInfo } from "./package-pages";
+import type { PackageInfo } from "./package-pages";
+import { renderPackage } from "./package-render";
+
+export { renderPackage };
 import { pdfFilename } from "./render";
 import type { SheetPdfData } from "./types";
-import { renderInWorker } from "./worker-render";
 
 /**
  * Issues a project's calculation package: every sheet's revision in force (approved),
  * in project order, and optionally the latest revision of sheets not yet approved
- * (watermarked DRAFT). Rendered twice in a worker thread (first to learn where each
- * part starts, then with the index filled in), stored byte for byte with its SHA-256
+ * (watermarked DRAFT). Rendered in a worker thread (renderPackage: the index refers to
+ * where each part starts), stored byte for byte with its SHA-256
  * and recorded as package.issued.
  */
 export interface IssuedPackageResult {
@@ -43,13 +45,6 @@ export async function packageSheets(actor: Actor, projectId: number, includeDraf
     await yieldToEventLoop();
   }
   return out;
-}
-
-/** Renders a package (two passes in a worker); returns the PDF and the page where each part starts. */
-export async function renderPackage(info: PackageInfo): Promise<{ pdf: Buffer; pages: Record<string, number> }> {
-  const first = await renderInWorker(packageDocument(info, null));
-  const second = await renderInWorker(packageDocument(info, first.marks));
-  return { pdf: second.pdf, pages: second.marks };
 }
 
 export async function issuePackage(actor: Actor, rawProjectId: unknown, opts: { includeDrafts: boolean }): Promise<IssuedPackageResult> {

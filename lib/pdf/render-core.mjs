@@ -7,7 +7,10 @@
  * Node types are react-pdf's primitives by name, plus "PageNo": a Text whose content
  * is `p.template` with {page} and {pages} filled in at layout time, and "Mark": an
  * invisible Text that records the page it lands on under `p.id` (how a package learns
- * where each section starts, for its index).
+ * where each section starts, for its index), and "PageRef": a Text that prints the page
+ * of the Mark `p.id` — react-pdf calls render props again once every page is split, when
+ * all marks are known, so an index can print its page numbers in the same pass. What a
+ * PageRef printed last is returned under `refs`, for the caller to check against `marks`.
  */
 import path from "node:path";
 import { createElement } from "react";
@@ -63,8 +66,14 @@ function fill(template, pageNumber, totalPages) {
   return template.replace("{page}", String(pageNumber)).replace("{pages}", String(totalPages));
 }
 
-/** The description tree → React elements of react-pdf; page marks are written into `marks`. */
-export function toElement(node, key, marks = {}) {
+/** The text a PageRef prints for a mark's page (a dash while or when it is unknown). */
+export function pageRefText(page) {
+  return page === undefined ? "—" : String(page);
+}
+
+/** The description tree → React elements of react-pdf; page marks are written into `ctx.marks`, printed page references into `ctx.refs`. */
+export function toElement(node, key, ctx = { marks: {}, refs: {} }) {
+  const { marks, refs } = ctx;
   if (node === null || node === undefined || node === false) return null;
   if (typeof node === "string" || typeof node === "number") return String(node);
   const props = { ...(node.p ?? {}) };
@@ -84,12 +93,23 @@ export function toElement(node, key, marks = {}) {
       },
     });
   }
+  if (node.t === "PageRef") {
+    const { id, ...rest } = props;
+    return createElement(RP.Text, {
+      ...rest,
+      render: () => {
+        const printed = pageRefText(marks[id]);
+        refs[id] = printed;
+        return printed;
+      },
+    });
+  }
   if (node.t === "Image" && props.src && typeof props.src === "object" && props.src.base64) {
     props.src = { data: Buffer.from(props.src.base64, "base64"), format: props.src.format };
   }
   const type = PRIMITIVES[node.t];
   if (!type) throw new Error(`Unknown PDF node type ${node.t}`);
-  const children = (node.c ?? []).map((c, i) => toElement(c, i, marks));
+  const children = (node.c ?? []).map((c, i) => toElement(c, i, ctx));
   return createElement(type, props, ...children);
 }
 
@@ -98,10 +118,10 @@ export async function renderTree(tree, root) {
   return (await renderTreeWithMarks(tree, root)).pdf;
 }
 
-/** Renders a Document tree; also returns the page each Mark landed on. */
+/** Renders a Document tree; also returns the page each Mark landed on and what each PageRef printed. */
 export async function renderTreeWithMarks(tree, root) {
   registerFonts(root);
-  const marks = {};
-  const pdf = await RP.renderToBuffer(toElement(tree, undefined, marks));
-  return { pdf, marks };
+  const ctx = { marks: {}, refs: {} };
+  const pdf = await RP.renderToBuffer(toElement(tree, undefined, ctx));
+  return { pdf, marks: ctx.marks, refs: ctx.refs };
 }

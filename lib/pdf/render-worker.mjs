@@ -1,7 +1,7 @@
 /**
  * Worker-thread entry: renders PDF description trees off the main thread, so a long
  * package does not hold up other requests. Long-lived (fonts stay loaded): each message
- * { id, tree, root } is answered with { id, pdf (ArrayBuffer, transferred), marks } or
+ * { id, tree, root } is answered with { id, pdf (ArrayBuffer, transferred), marks, refs } or
  * { id, error }, one at a time.
  */
 import { parentPort } from "node:worker_threads";
@@ -9,9 +9,9 @@ import { renderTreeWithMarks } from "./render-core.mjs";
 
 parentPort.on("message", async ({ id, tree, root }) => {
   try {
-    const { pdf, marks } = await renderTreeWithMarks(tree, root);
+    const { pdf, marks, refs } = await renderTreeWithMarks(tree, root);
     const bytes = pdf.buffer.slice(pdf.byteOffset, pdf.byteOffset + pdf.byteLength);
-    parentPort.postMessage({ id, pdf: bytes, marks }, [bytes]);
+    parentPort.postMessage({ id, pdf: bytes, marks, refs }, [bytes]);
   } catch (err) {
     parentPort.postMessage({ id, error: err instanceof Error ? `${err.message}\n${err.stack ?? ""}` : String(err) });
   }

@@ -21,7 +21,8 @@ export type PdfNodeType =
   | "Tspan"
   | "SvgText"
   | "PageNo"
-  | "Mark";
+  | "Mark"
+  | "PageRef";
 
 export type PdfChild = PdfNode | string | number | null | undefined | false;
 

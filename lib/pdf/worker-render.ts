@@ -10,8 +10,15 @@ import type { PdfNode } from "./tree";
  * directory (the app's root, where `next start` runs). The worker is unref'd: it never
  * keeps the process alive; if it dies, the next job starts a new one.
  */
-type Reply = { id: number; pdf?: ArrayBuffer; marks?: Record<string, number>; error?: string };
-type Pending = { resolve: (v: { pdf: Buffer; marks: Record<string, number> }) => void; reject: (e: Error) => void };
+type Reply = { id: number; pdf?: ArrayBuffer; marks?: Record<string, number>; refs?: Record<string, string>; error?: string };
+export interface WorkerRender {
+  pdf: Buffer;
+  /** The page each Mark landed on. */
+  marks: Record<string, number>;
+  /** What each PageRef printed. */
+  refs: Record<string, string>;
+}
+type Pending = { resolve: (v: WorkerRender) => void; reject: (e: Error) => void };
 
 let worker: Worker | null = null;
 let nextId = 1;
@@ -38,7 +45,7 @@ function getWorker(root: string): Worker {
     if (!p) return;
     pending.delete(m.id);
     if (m.error || !m.pdf) p.reject(new Error(`PDF worker failed: ${m.error ?? "no output"}`));
-    else p.resolve({ pdf: Buffer.from(m.pdf), marks: m.marks ?? {} });
+    else p.resolve({ pdf: Buffer.from(m.pdf), marks: m.marks ?? {}, refs: m.refs ?? {} });
   });
   w.on("error", (err) => failAll(err instanceof Error ? err : new Error(String(err))));
   w.on("exit", (code) => {
@@ -48,7 +55,7 @@ function getWorker(root: string): Worker {
   return w;
 }
 
-export function renderInWorker(tree: PdfNode, root = process.cwd()): Promise<{ pdf: Buffer; marks: Record<string, number> }> {
+export function renderInWorker(tree: PdfNode, root = process.cwd()): Promise<WorkerRender> {
   return new Promise((resolve, reject) => {
     const id = nextId++;
     pending.set(id, { resolve, reject });
