@@ -84,6 +84,19 @@ function mutationArb(paths: Path[]): fc.Arbitrary<Mutation[]> {
   return fc.array(one, { minLength: 1, maxLength: 3 });
 }
 
+/**
+ * A copy of a generated value, so a later mutation whose path runs through it cannot
+ * write into the generator's own object (two mutations sharing one object made a cycle).
+ */
+function detached(value: unknown): unknown {
+  if (value === null || typeof value !== "object") return value;
+  try {
+    return structuredClone(value);
+  } catch {
+    return value;
+  }
+}
+
 /** Applies mutations to a copy of the input and encodes it; raw literals replace their markers in the text. */
 function encodeMutated(base: Record<string, unknown>, mutations: Mutation[]): string {
   const v = structuredClone(base) as Record<string | number, unknown>;
@@ -97,7 +110,7 @@ function encodeMutated(base: Record<string, unknown>, mutations: Mutation[]): st
     if (m.op === "delete") {
       if (Array.isArray(target)) target.splice(Number(key), 1);
       else delete target[key];
-    } else if (m.op === "set") target[key] = m.value;
+    } else if (m.op === "set") target[key] = detached(m.value);
     else {
       const marker = `__raw_${i}__`;
       target[key] = marker;
