@@ -79,3 +79,12 @@ export function SelectField({
     </Frame>
   );
 }
+
+export function TextAreaField({ label, error, hint, className, id, ...textarea }: FieldProps & Omit<ComponentProps<"textarea">, "className">) {
+  const { fieldId, describedBy } = useFieldIds(id, error, hint, textarea["aria-describedby"]);
+  return (
+    <Frame fieldId={fieldId} label={label} error={error} hint={hint} className={className}>
+      <textarea {...textarea} id={fieldId} className="field-input" aria-invalid={error ? true : undefined} aria-describedby={describedBy} />
+    </Frame>
+  );
+}

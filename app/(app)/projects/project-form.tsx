@@ -25,11 +25,10 @@ import {
   UNIT_SYSTEM_LABELS,
 } from "@/lib/validation/project";
 import { createProjectAction, updateProjectAction } from "./actions";
-import { InputField, SelectField } from "@/components/forms/field";
+import { InputField, SelectField, TextAreaField } from "@/components/forms/field";
 import { FormAlert } from "@/components/forms/form-alert";
 import { applyServerErrors } from "@/components/forms/server-errors";
 import { SubmitButton } from "@/components/forms/submit-button";
-import { TextAreaField } from "./form-fields";
 import { isProjectListKey } from "./list-key";
 
 type FormIn = z.input<typeof projectSchema>;
