@@ -28,6 +28,11 @@ export const AUDIT_EVENTS = [
   "token.created",
   "token.revoked",
   "package.issued",
+  "schedule.uploaded",
+  "ampacity_table.uploaded",
+  "ampacity_table.retired",
+  "ampacity_table.restored",
+  "network.imported",
 ] as const;
 export type AuditEvent = (typeof AUDIT_EVENTS)[number];
 

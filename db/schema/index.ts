@@ -6,3 +6,5 @@ export * from "./audit";
 export * from "./uploads";
 export * from "./mail";
 export * from "./tokens";
+export * from "./ampacity";
+export * from "./schedules";

@@ -116,6 +116,7 @@ async function startMariaDb(work: string, logs: string) {
     "--collation-server=utf8mb4_unicode_ci",
     "--innodb-log-file-size=8M",
     "--innodb-buffer-pool-size=64M",
+    "--max-allowed-packet=256M",
   ];
   let child: ChildProcess | undefined;
   const ping = () => spawnSync("mariadb-admin", ["--no-defaults", `--socket=${sock}`, "-uroot", "ping"], { encoding: "utf8" }).status === 0;
