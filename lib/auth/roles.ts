@@ -16,6 +16,10 @@ export const PERMISSIONS = {
   "sheet.submit": ["lead", "engineer"],
   "sheet.review": ["lead"],
   "token.manage": ["admin", "lead", "engineer", "viewer"],
+  "schedule.read": ["admin", "lead", "engineer", "viewer"],
+  "schedule.upload": ["lead", "engineer"],
+  "ampacity.read": ["admin", "lead", "engineer", "viewer"],
+  "ampacity.manage": ["admin"],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof PERMISSIONS;
