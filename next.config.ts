@@ -11,8 +11,7 @@ const nextConfig: NextConfig = {
   poweredByHeader: false,
   // The type check runs once in `npm test` (tsc --noEmit); the build would repeat it.
   typescript: { ignoreBuildErrors: false },
-  proxyClientMaxBodySize: UPLOAD_BODY_LIMIT,
-  experimental: { serverActions: { bodySizeLimit: UPLOAD_BODY_LIMIT } },
+  experimental: { serverActions: { bodySizeLimit: UPLOAD_BODY_LIMIT }, proxyClientMaxBodySize: UPLOAD_BODY_LIMIT },
 };
 
 export default nextConfig;

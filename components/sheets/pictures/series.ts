@@ -294,6 +294,83 @@ export function pathSharesFromParallel(
   return { paths, contingency };
 }
 
+/** One remaining path when another is open: its current before and after, and against its ampacity. */
+export interface RedistributionRow {
+  name: string;
+  before: number;
+  after: number;
+  /** after − before, A. */
+  increase: number;
+  /** after / before − 1 (undefined when the path carried nothing before). */
+  increaseRatio?: number;
+  ampacity?: number;
+  /** after / ampacity. */
+  afterUtilisation?: number;
+  overloaded: boolean;
+  /** The path that is open (after = 0). */
+  isOpen: boolean;
+}
+
+/** Before → after for every path with one path open (the open one included, marked). */
+export function redistribution(paths: readonly PathShareIn[], c: ContingencyIn): RedistributionRow[] {
+  return paths.map((p, i) => {
+    const after = c.currents[i] ?? 0;
+    const amp = p.ampacity_A !== undefined && p.ampacity_A > 0 ? p.ampacity_A : undefined;
+    const isOpen = c.openPath === p.name;
+    return {
+      name: p.name,
+      before: p.current_A,
+      after: isOpen ? 0 : after,
+      increase: (isOpen ? 0 : after) - p.current_A,
+      ...(p.current_A > 0 ? { increaseRatio: (isOpen ? 0 : after) / p.current_A - 1 } : {}),
+      ...(amp !== undefined ? { ampacity: amp, afterUtilisation: (isOpen ? 0 : after) / amp } : {}),
+      overloaded: !isOpen && amp !== undefined && after > amp,
+      isOpen,
+    };
+  });
+}
+
+/** The case in words: which remaining paths exceed their ampacity, or that none does. */
+export function redistributionSentence(openPath: string, rows: readonly RedistributionRow[]): string {
+  const over = rows.filter((r) => r.overloaded);
+  const rated = rows.some((r) => !r.isOpen && r.ampacity !== undefined);
+  if (over.length === 0) {
+    if (!rated) return `With ${openPath} open, the remaining paths share the current; no ampacity is given, so overloads are not assessed.`;
+    return `With ${openPath} open, every remaining path stays within its ampacity.`;
+  }
+  const list = over.map((r) => `${r.name} carries ${amps(r.after)}, ${fixed((r.afterUtilisation ?? 0) * 100, 0)} % of its ${amps(r.ampacity ?? 0)} ampacity`);
+  return `With ${openPath} open, ${list.join("; ")}: ${over.length === 1 ? "it is" : "they are"} overloaded.`;
+}
+
+/** One "path open" case of the N−1 table. */
+export interface ContingencyCaseRow {
+  openPath: string;
+  /** The remaining path loaded highest against its ampacity (or in amperes, without ampacities). */
+  highest?: { name: string; current: number; utilisation?: number };
+  overloaded: string[];
+  verdict: "pass" | "fail" | "not rated";
+}
+
+/** Every "one path open" case with its highest loaded path and verdict, and the index of the worst case. */
+export function contingencyTable(paths: readonly PathShareIn[], cases: readonly ContingencyIn[]): { rows: ContingencyCaseRow[]; worst: number } {
+  const rated = paths.some((p) => p.ampacity_A !== undefined && p.ampacity_A > 0);
+  const rows = cases.map((c): ContingencyCaseRow => {
+    const red = redistribution(paths, c).filter((r) => !r.isOpen);
+    let highest: ContingencyCaseRow["highest"];
+    let score = -Infinity;
+    for (const r of red) {
+      const s = rated ? (r.afterUtilisation ?? -Infinity) : r.after;
+      if (s > score) {
+        score = s;
+        highest = { name: r.name, current: r.after, ...(r.afterUtilisation !== undefined ? { utilisation: r.afterUtilisation } : {}) };
+      }
+    }
+    const overloaded = red.filter((r) => r.overloaded).map((r) => r.name);
+    return { openPath: c.openPath, ...(highest ? { highest } : {}), overloaded, verdict: !rated ? "not rated" : overloaded.length ? "fail" : "pass" };
+  });
+  return { rows, worst: worstContingencyIndex(paths, cases) };
+}
+
 // ---------------------------------------------------------------------------------
 // Text summaries (figure captions and screen readers)
 // ---------------------------------------------------------------------------------
