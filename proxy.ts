@@ -5,5 +5,5 @@ import { withAuth } from "next-auth/middleware";
 export default withAuth({ pages: { signIn: "/login" } });
 
 export const config = {
-  matcher: ["/", "/projects/:path*", "/admin/:path*", "/sheets/:path*", "/review/:path*", "/account/:path*", "/api-docs/:path*", "/my-sheets/:path*"],
+  matcher: ["/", "/projects/:path*", "/admin/:path*", "/sheets/:path*", "/review/:path*", "/account/:path*", "/api-docs/:path*", "/my-sheets/:path*", "/ampacity-tables/:path*"],
 };

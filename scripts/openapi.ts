@@ -12,6 +12,7 @@ import { createSheetBody, saveSheetBody, transitionBody } from "../app/api/v1/sh
 import { tokenCreateBody } from "../app/api/v1/tokens/body";
 import { PERMISSIONS, type Permission } from "../lib/auth/roles";
 import { CALC_KIND_NAMES, CALC_KINDS, ENGINE_VERSION } from "../lib/engine";
+import { ampacityRowSchema } from "../lib/engine/ampacity-table";
 import { int } from "../lib/engine/core/schema";
 import { TRANSITIONS } from "../lib/sheets/workflow";
 import { PROJECT_SORTS, projectFields, projectSchema } from "../lib/validation/project";
@@ -627,6 +628,62 @@ function tokenPaths(): Json {
   };
 }
 
+const ampacityTableSummary: Json = {
+  type: "object",
+  required: ["id", "name", "version", "source", "rowCount", "active", "createdAt"],
+  properties: {
+    id: idInt,
+    name: { type: "string" },
+    version: { type: "integer", minimum: 1, description: "1, 2, 3 … per name" },
+    source: { type: "string", description: "Where the values come from, as the admin wrote it" },
+    rowCount: { type: "integer" },
+    active: { type: "boolean", description: "False once retired: no longer offered for new work" },
+    createdAt: dateTime,
+    createdByName: nullable({ type: "string" }),
+    retiredAt: nullable(dateTime),
+  },
+};
+
+function ampacityPaths(): Json {
+  return {
+    "/api/v1/ampacity-tables": {
+      get: operation("listAmpacityTables", {
+        tag: "Ampacity tables",
+        summary: "The organisation's ampacity tables, one entry per version (names A→Z, newest version first)",
+        permission: "ampacity.read",
+        params: [{ name: "active", in: "query", required: false, description: "1: active versions only", schema: { type: "string", enum: ["0", "1"] } }],
+        ok: { status: "200", description: "The versions", schema: { type: "object", required: ["tables"], properties: { tables: { type: "array", items: ref("AmpacityTableSummary") } } } },
+        errors: ["BadRequest", ...AUTH_ERRORS],
+      }),
+    },
+    "/api/v1/ampacity-tables/{id}": {
+      get: operation("getAmpacityTable", {
+        tag: "Ampacity tables",
+        summary: "One version with its rows (SI: m², °C, A) and the uploaded file's SHA-256",
+        permission: "ampacity.read",
+        params: [pathParam("id", "Ampacity table version id")],
+        ok: {
+          status: "200",
+          description: "The version",
+          schema: {
+            type: "object",
+            required: ["table"],
+            properties: {
+              table: {
+                allOf: [
+                  ref("AmpacityTableSummary"),
+                  { type: "object", required: ["fileSha256", "rows"], properties: { fileSha256: { type: "string", pattern: "^[0-9a-f]{64}$" }, rows: { type: "array", items: ref("AmpacityRow") } } },
+                ],
+              },
+            },
+          },
+        },
+        errors: ["NotFound", ...AUTH_ERRORS],
+      }),
+    },
+  };
+}
+
 function healthPath(): Json {
   return {
     "/api/health": {
@@ -663,6 +720,8 @@ export function buildOpenApi(): Json {
     RevisionSummary: revisionSummary,
     Revision: revision,
     Token: token,
+    AmpacityTableSummary: ampacityTableSummary,
+    AmpacityRow: jsonSchema(ampacityRowSchema),
   };
   for (const k of CALC_KIND_NAMES) schemas[calcSchemaName(k)] = { title: CALC_KINDS[k].title, ...calcInputJsonSchema(k) };
 
@@ -689,9 +748,10 @@ export function buildOpenApi(): Json {
       { name: "Projects", description: "The organisation's projects" },
       { name: "Sheets", description: "Calculation sheets, their revisions and review" },
       { name: "API tokens", description: "Personal tokens for scripts and other programs" },
+      { name: "Ampacity tables", description: "The organisation's versioned ampacity tables (uploaded by admins in the app)" },
       { name: "Service", description: "Health" },
     ],
-    paths: { ...calcPaths(), ...projectPaths(), ...sheetPaths(), ...tokenPaths(), ...healthPath() },
+    paths: { ...calcPaths(), ...projectPaths(), ...sheetPaths(), ...tokenPaths(), ...ampacityPaths(), ...healthPath() },
     components: {
       securitySchemes: {
         bearerAuth: { type: "http", scheme: "bearer", description: "A personal API token; it acts with its owner's role and organisation" },

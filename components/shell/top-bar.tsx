@@ -12,6 +12,7 @@ export function navItemsFor(actor: Pick<Actor, "role">, fakeSmtp: boolean): NavI
   if (can(actor.role, "project.read")) items.push({ href: "/projects", label: "Projects" });
   if (can(actor.role, "sheet.write")) items.push({ href: "/my-sheets", label: "My sheets" });
   if (can(actor.role, "sheet.review")) items.push({ href: "/review", label: "Review queue" });
+  if (can(actor.role, "ampacity.read")) items.push({ href: "/ampacity-tables", label: "Ampacity tables" });
   if (can(actor.role, "users.manage")) items.push({ href: "/admin/users", label: "Users" });
   if (can(actor.role, "organisation.manage")) items.push({ href: "/admin/organisation", label: "Organisation" });
   if (fakeSmtp && can(actor.role, "mailbox.read")) items.push({ href: "/admin/mailbox", label: "Mailbox" });

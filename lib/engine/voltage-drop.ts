@@ -14,6 +14,18 @@ import { material, MATERIAL_IDS, resistivity20, resistivityAt, type Material, ty
 import { iec60228Sizes, usConductorSizes } from "./conductors";
 import limitsTable from "../../reference-tables/voltage-drop-limits.json";
 import { CABLE_INSULATIONS, iec60228Resistance20, insulationMaxTemperature, skinEffectFactor } from "./cable-ampacity";
+import {
+  ampacityFromTable,
+  ampacityRowSchema,
+  findAmpacityRow,
+  GROUPING_ARRANGEMENTS,
+  GROUPING_FACTORS,
+  installationCode,
+  TABLE_INSULATIONS,
+  tableSizes,
+  tableText,
+  type AmpacityRow,
+} from "./ampacity-table";
 
 export const SUPPLY_SYSTEMS = ["dc-2w", "ac-1ph-2w", "ac-3ph-3w", "ac-3ph-4w"] as const;
 export type SupplySystem = (typeof SUPPLY_SYSTEMS)[number];
@@ -165,6 +177,30 @@ export function conductorResistanceAt(m: Material, area_m2: number, theta_C: num
 // Validated calculation
 // ---------------------------------------------------------------------------------------
 
+/**
+ * The organisation ampacity table a feeder takes its current-carrying capacity from: a
+ * snapshot of the version used (only the rows of the chosen material, insulation and
+ * installation), so the stored sheet recomputes alone and its hash covers the values.
+ */
+export const feederAmpacityTableSchema = z.object({
+  table: z.object({
+    id: int("Ampacity table", 1, 4_294_967_295),
+    name: z.preprocess(tableText, z.string({ error: "Ampacity table name is required (1 to 120 characters)" }).trim().min(1, { message: "Ampacity table name is required (1 to 120 characters)" }).max(120)),
+    version: int("Ampacity table version", 1, 1_000_000),
+    source: z.preprocess(tableText, z.string().max(500)).optional(),
+    rows: z
+      .array(ampacityRowSchema)
+      .min(1, { message: "The ampacity table snapshot has no rows for this material, insulation and installation method" })
+      .max(5000, { message: "The ampacity table snapshot may have at most 5000 rows" }),
+  }),
+  installation: installationCode,
+  insulation: choice("Table insulation", TABLE_INSULATIONS),
+  /** IEC 60364-5-52 Table B.52.17 arrangement; none = no grouping reduction. */
+  groupingArrangement: choice("Grouping arrangement", GROUPING_ARRANGEMENTS).optional(),
+  circuits: int("Circuits or multi-core cables in the group", 1, 100).default(1),
+});
+export type FeederAmpacityTable = z.output<typeof feederAmpacityTableSchema>;
+
 export const voltageDropInputSchema = z
   .object({
     system: choice("Supply system", SUPPLY_SYSTEMS),
@@ -190,6 +226,8 @@ export const voltageDropInputSchema = z
     ambient_C: num("Ambient temperature", "°C", -40, 80).default(30),
     /** Current-carrying capacity I_z of the whole phase (all parallel conductors), A. */
     ampacity_A: num("Current-carrying capacity", "A", 0, 100_000, { exclusiveMin: true }).optional(),
+    /** Or I_z from an organisation ampacity table with the ambient and grouping corrections. */
+    ampacityFromTable: feederAmpacityTableSchema.optional(),
     temperatureBasis: choice("Temperature basis", TEMPERATURE_BASES).default("auto"),
     conductorTemperature_C: num("Conductor temperature", "°C", -40, 250).optional(),
     method: choice("Method", ["approximate", "exact"] as const).default("exact"),
@@ -204,7 +242,7 @@ export const voltageDropInputSchema = z
   .superRefine((v, ctx) => {
     if (v.temperatureBasis === "given" && v.conductorTemperature_C === undefined)
       ctx.addIssue({ code: "custom", path: ["conductorTemperature_C"], message: "Conductor temperature is required when the temperature basis is \"given\" (-40 to 250 °C)" });
-    if (v.temperatureBasis === "load" && v.ampacity_A === undefined)
+    if (v.temperatureBasis === "load" && v.ampacity_A === undefined && v.ampacityFromTable === undefined)
       ctx.addIssue({ code: "custom", path: ["ampacity_A"], message: "Current-carrying capacity is required when the temperature basis is \"load\" (greater than 0 A)" });
   });
 
@@ -246,6 +284,95 @@ export interface VoltageDropResults {
   profile: ProfilePoint[];
   /** Smallest standard size (same number in parallel) meeting the limit at θ_max, or null if none. */
   minimumSize: { label: string; area_m2: number; drop_percent: number } | null;
+  /** I_z of the phase used, A, when it came from an organisation ampacity table. */
+  tableAmpacity_A?: number;
+  /** How I_z was taken from the organisation's table (present only then). */
+  ampacityTable?: FeederAmpacityTableUse;
+}
+
+export interface FeederAmpacityTableUse {
+  id: number;
+  name: string;
+  version: number;
+  source?: string;
+  /** "Ampacity table <name> v<version>": the phrase results, PDFs and intermediates use. */
+  title: string;
+  /** Size, material, insulation and installation of the row used ("95 mm² copper XLPE, installation E"). */
+  rowLabel: string;
+  row: AmpacityRow;
+  installation: string;
+  insulation: string;
+  ambientFactor: number;
+  groupingFactor: number;
+  groupingSource: string;
+  groupingArrangement?: string;
+  circuits: number;
+  parallel: number;
+  ampacity_A: number;
+}
+
+const mm2Text = (a_m2: number) => `${Number((a_m2 * 1e6).toPrecision(4))} mm²`;
+const sizeText = (r: { label?: string; size_m2: number }) => r.label || mm2Text(r.size_m2);
+
+/**
+ * I_z of the phase from an organisation table: I_z = n·I_tab·k_θ·k_g, the row matched on
+ * size, the metal of the conductor material, the table insulation and installation method.
+ * A size the table lacks is a field message on the cross-section naming the sizes it has.
+ */
+export function feederAmpacityFromTable(v: VoltageDropParsed, t: FeederAmpacityTable): { use: FeederAmpacityTableUse; warnings: Warning[] } {
+  const metal = material(v.materialId).metal;
+  const title = `Ampacity table ${t.table.name} v${t.table.version}`;
+  const table = { name: t.table.name, rows: t.table.rows };
+  const row = findAmpacityRow(table, v.area_m2, metal, t.insulation, t.installation);
+  if (!row) {
+    const sizes = tableSizes(table, metal, t.insulation, t.installation);
+    const labelled = sizes.map((a) => sizeText(t.table.rows.find((r) => r.size_m2 === a) ?? { size_m2: a }));
+    const what = `${metal} ${t.insulation.toUpperCase()}, installation "${t.installation}"`;
+    throw new EngineError(
+      "no-table-row",
+      sizes.length === 0
+        ? `${title} has no rows for ${what}; choose another installation method or insulation`
+        : `${title} has no row for ${mm2Text(v.area_m2)} (${what}); its sizes are ${labelled.join(", ")}`,
+      "area_m2",
+    );
+  }
+  const lookup = ampacityFromTable({
+    table,
+    size_m2: v.area_m2,
+    material: metal,
+    insulation: t.insulation,
+    installation: t.installation,
+    ambient_C: v.ambient_C,
+    ...(t.groupingArrangement ? { grouping: { arrangement: t.groupingArrangement, circuits: t.circuits } } : {}),
+  });
+  const r = lookup.results;
+  const warnings = [...lookup.warnings];
+  const thetaMax = insulationMaxTemperature(v.insulation, v.area_m2);
+  if (Math.abs(row.conductorMax_C - thetaMax) > 0.5)
+    warnings.push({
+      code: "table-insulation-mismatch",
+      message: `The table row is for a conductor maximum of ${row.conductorMax_C} °C but the feeder's insulation (${v.insulation.toUpperCase()}) allows ${thetaMax} °C: check that both describe the same cable.`,
+    });
+  if (v.ampacity_A !== undefined) warnings.push({ code: "entered-ampacity-ignored", message: `The entered current-carrying capacity (${v.ampacity_A} A) was not used: ${title} gives I_z.` });
+  const use: FeederAmpacityTableUse = {
+    id: t.table.id,
+    name: t.table.name,
+    version: t.table.version,
+    ...(t.table.source ? { source: t.table.source } : {}),
+    title,
+    rowLabel: `${sizeText(row)} ${row.material} ${row.insulation.toUpperCase()}, installation ${row.installation}`,
+    row,
+    installation: t.installation,
+    insulation: t.insulation,
+    ambientFactor: r.ambientFactor,
+    groupingFactor: r.groupingFactor,
+    groupingSource: r.groupingSource,
+    ...(t.groupingArrangement ? { groupingArrangement: t.groupingArrangement } : {}),
+    circuits: t.circuits,
+    parallel: v.parallel,
+    ampacity_A: r.corrected_A * v.parallel,
+  };
+  return { use, warnings };
 }
 
 interface Resolved {
@@ -357,9 +484,23 @@ const FORMULAS: Record<string, Formula> = {
 };
 
 export function voltageDrop(input: VoltageDropInput): CalcResult<VoltageDropResults> {
-  const v = voltageDropInputSchema.parse(input);
+  let v = voltageDropInputSchema.parse(input);
   const warnings: Warning[] = [];
   const formulas: Formula[] = [FORMULAS.approx!];
+  let tableUse: FeederAmpacityTableUse | undefined;
+  if (v.ampacityFromTable) {
+    const t = feederAmpacityFromTable(v, v.ampacityFromTable);
+    tableUse = t.use;
+    warnings.push(...t.warnings);
+    // From here on the table's I_z is the feeder's current-carrying capacity.
+    v = { ...v, ampacity_A: t.use.ampacity_A };
+    formulas.push(
+      { id: "iz-table", expression: "I_z = n·I_tab·k_θ·k_g", source: `${t.use.title}${t.use.source ? ` (${t.use.source})` : ""}, row ${t.use.rowLabel}: ${t.use.row.ampacity_A} A at ${t.use.row.referenceAmbient_C} °C; correction factors applied per IEC 60364-5-52:2009 §523` },
+      { id: "k-theta", expression: "k_θ = √((θ_max − θ_a)/(θ_max − θ_ref))", source: "IEC 60364-5-52:2009 Table B.52.14 basis (the factors follow from this formula) — from memory" },
+    );
+    if (t.use.groupingArrangement)
+      formulas.push({ id: "k-group", expression: `k_g = ${t.use.groupingFactor} (${t.use.circuits} circuit(s))`, source: t.use.groupingSource });
+  }
   const b = loopFactor(v.system);
   const { cos, sin } = pfAngle(v);
   const U = phaseVoltage(v.system, v.nominalVoltage_V);
@@ -450,6 +591,7 @@ export function voltageDrop(input: VoltageDropInput): CalcResult<VoltageDropResu
     limitSource: v.limitPercent !== undefined ? "organisation override" : `${limitRow.name}: ${limitRow.source}`,
     profile,
     minimumSize,
+    ...(tableUse ? { tableAmpacity_A: tableUse.ampacity_A, ampacityTable: tableUse } : {}),
   };
 
   return {
@@ -467,6 +609,15 @@ export function voltageDrop(input: VoltageDropInput): CalcResult<VoltageDropResu
       X: q("Phase reactance over the route", x * v.length_m, "Ω"),
       u: q("Drop u (per phase / loop)", u, "V"),
       limit: q("Limit", limit_percent, "%"),
+      ...(tableUse
+        ? {
+            Itab: q(`Tabulated ampacity I_tab — ${tableUse.title}, ${sizeText(tableUse.row)} ${tableUse.row.material} ${tableUse.row.insulation.toUpperCase()} installation ${tableUse.row.installation}`, tableUse.row.ampacity_A, "A"),
+            kTheta: q(`Ambient correction k_θ (θ_a ${v.ambient_C} °C, θ_ref ${tableUse.row.referenceAmbient_C} °C, θ_max ${tableUse.row.conductorMax_C} °C)`, tableUse.ambientFactor, ""),
+            kg: q(`Grouping factor k_g (${tableUse.groupingArrangement ? `${GROUPING_FACTORS[tableUse.groupingArrangement as keyof typeof GROUPING_FACTORS].label}, ${tableUse.circuits} circuit(s)` : "no grouping"})`, tableUse.groupingFactor, ""),
+            n: q("Conductors in parallel n", v.parallel, ""),
+            Iz: q("Current-carrying capacity of the phase I_z", tableUse.ampacity_A, "A"),
+          }
+        : {}),
     },
     formulas,
     warnings,

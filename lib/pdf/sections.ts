@@ -34,16 +34,35 @@ function table(columns: { title: string; width?: number; grow?: boolean; align?:
   );
 }
 
+/**
+ * An organisation ampacity table snapshot in a sheet's inputs, as one readable line
+ * ("Ampacity table: Site code v3 (installation E, XLPE, 3 circuits bunched)") instead of its rows.
+ */
+export function ampacityTableLine(snapshot: unknown): string | null {
+  if (typeof snapshot !== "object" || snapshot === null) return null;
+  const s = snapshot as { table?: { name?: unknown; version?: unknown; source?: unknown; rows?: unknown }; installation?: unknown; insulation?: unknown; groupingArrangement?: unknown; circuits?: unknown };
+  if (!s.table) return null;
+  const rows = Array.isArray(s.table.rows) ? s.table.rows.length : 0;
+  const circuits = Number(s.circuits ?? 1);
+  const grouping = typeof s.groupingArrangement === "string" && s.groupingArrangement ? `${circuits} circuit${circuits === 1 ? "" : "s"} ${s.groupingArrangement.replace(/-/g, " ")}` : "no grouping";
+  const parts = [`installation ${String(s.installation ?? "")}`, String(s.insulation ?? "").toUpperCase(), grouping];
+  const source = typeof s.table.source === "string" && s.table.source ? ` Source: ${s.table.source}.` : "";
+  return `Ampacity table: ${String(s.table.name ?? "")} v${String(s.table.version ?? "")} (${parts.join(", ")}); ${rows} row${rows === 1 ? "" : "s"} of it kept with this sheet.${source}`;
+}
+
 /** Inputs in the project's units (converted at the edge, as the form shows them). */
 export function inputsSection(kind: string, inputs: Record<string, unknown>, system: UnitSystem): PdfNode[] {
   const rows: { path: string; value: string }[] = [];
-  leaves(toFormValues(kind, inputs, system), "", rows);
+  const { ampacityFromTable, ...rest } = inputs;
+  const tableLine = ampacityTableLine(ampacityFromTable);
+  leaves(toFormValues(kind, tableLine ? rest : inputs, system), "", rows);
   return [
     heading("Inputs"),
     table(
       [{ title: "Quantity", grow: true }, { title: "Value", width: 130, align: "right" }, { title: "Unit", width: 70 }],
       rows.map((r) => [humanisePath(r.path), r.value, unitLabel(kind, r.path, system)]),
     ),
+    ...(tableLine ? [h("Text", { style: { fontSize: 9, marginTop: 4 } }, tableLine)] : []),
   ];
 }
 
