@@ -1,5 +1,6 @@
 import { CAUTION, footer, titleBlock } from "./chrome";
 import { mathText } from "./math-text";
+import { schedulePage, type SchedulePdfData } from "./schedule-pages";
 import { isStamped, sheetPage } from "./sheet-pages";
 import { h, text, view, type PdfNode } from "./tree";
 import { colour, font, isoDate, s } from "./styles";
@@ -21,9 +22,12 @@ export interface PackageInfo {
   issuedBy: string;
   includesDrafts: boolean;
   sheets: SheetPdfData[];
+  /** The project's current cable schedule, printed after the sheets (absent when none was uploaded). */
+  schedule?: SchedulePdfData | null;
 }
 
 export const BASIS_MARK = "basis";
+export const SCHEDULE_MARK = "cable-schedule";
 export const sheetMark = (d: SheetPdfData) => `sheet-${d.sheet.id}`;
 
 const STATUS: Record<SheetPdfData["revision"]["status"], string> = { draft: "Draft", in_review: "In review", returned: "Returned", approved: "Approved", superseded: "Superseded" };
@@ -130,6 +134,7 @@ function index(p: PackageInfo, pages: Record<string, number> | null): PdfNode {
     text(s.h2, "Index"),
     view({ flexDirection: "row", paddingVertical: 3, borderBottomWidth: 0.75, borderBottomColor: colour.text }, text({ width: 60, fontWeight: 600 }, "Sheet"), text({ flexGrow: 1, flexBasis: 0, fontWeight: 600 }, "Title"), text({ width: 40, fontWeight: 600 }, "Rev"), text({ width: 50, textAlign: "right", fontWeight: 600 }, "Page")),
     p.sheets.map((d) => row(d.sheet.tag, d.sheet.title, d.revision.label, sheetMark(d))),
+    p.schedule ? row("CS", `Cable schedule — ${p.schedule.filename} (${p.schedule.rowCount} rows)`, "", SCHEDULE_MARK) : null,
     row("—", "Basis of calculation and cautions", "", BASIS_MARK),
   );
 }
@@ -162,9 +167,9 @@ function basis(p: PackageInfo): PdfNode {
   );
 }
 
-/** The marks the index refers to: every sheet's, then the basis page's. */
+/** The marks the index refers to: every sheet's, the cable schedule's, then the basis page's. */
 export function indexMarks(p: PackageInfo): string[] {
-  return [...p.sheets.map(sheetMark), BASIS_MARK];
+  return [...p.sheets.map(sheetMark), ...(p.schedule ? [SCHEDULE_MARK] : []), BASIS_MARK];
 }
 
 /** The whole package as one Document tree (`pages` null: the index refers to the marks live). */
@@ -176,6 +181,7 @@ export function packageDocument(p: PackageInfo, pages: Record<string, number> | 
     statusTable(p),
     index(p, pages),
     p.sheets.map((d) => sheetPage(d, { mark: sheetMark(d) })),
+    p.schedule ? schedulePage(p.schedule, chrome(p, "Cable schedule"), SCHEDULE_MARK) : null,
     basis(p),
   );
 }

@@ -6,7 +6,7 @@ import { forbidden, validationError } from "@/lib/errors";
 import { getRevision, getSheet, listProjectSheets } from "@/lib/sheets/reads";
 import { parseInput } from "@/lib/sheets/common";
 import { idField } from "@/lib/sheets/schemas";
-import { pdfOrganisation, pdfProject, toSheetPdfData } from "./load";
+import { pdfOrganisation, pdfProject, pdfSchedule, toSheetPdfData } from "./load";
 import type { PackageInfo } from "./package-pages";
 import { renderPackage } from "./package-render";
 
@@ -57,7 +57,7 @@ export async function issuePackage(actor: Actor, rawProjectId: unknown, opts: { 
       "Nothing to put in the package",
     );
   }
-  const previous = await listProjectPackages(actor.organisationId, projectId);
+  const [previous, schedule] = await Promise.all([listProjectPackages(actor.organisationId, projectId), pdfSchedule(actor.organisationId, projectId)]);
   const label = `P${previous.length + 1}`;
   const info: PackageInfo = {
     organisation: sheets[0]!.organisation,
@@ -67,6 +67,7 @@ export async function issuePackage(actor: Actor, rawProjectId: unknown, opts: { 
     issuedBy: actor.name,
     includesDrafts: sheets.some((d) => d.revision.status !== "approved" && d.revision.status !== "superseded"),
     sheets,
+    schedule,
   };
   const { pdf } = await renderPackage(info);
   const filename = pdfFilename(info.project.code, "calculation-package", label);

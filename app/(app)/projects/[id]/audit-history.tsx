@@ -7,6 +7,7 @@ const EVENT_LABELS: Partial<Record<ProjectAuditEntry["event"], string>> = {
   "project.archived": "Archived the project",
   "project.restored": "Restored the project",
   "package.issued": "Issued a calculation package",
+  "schedule.uploaded": "Uploaded a cable schedule",
 };
 
 const FIELD_LABELS: Record<string, string> = {

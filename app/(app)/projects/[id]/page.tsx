@@ -16,6 +16,7 @@ import { ArchiveButton } from "./archive-button";
 import { AuditHistory } from "./audit-history";
 import { loadProjectOr404 } from "./load";
 import { PackagePanel } from "./package-panel";
+import { ScheduleSummaryPanel } from "./schedule/summary-panel";
 
 export const metadata: Metadata = { title: "Project" };
 
@@ -98,6 +99,8 @@ export default async function ProjectPage({ params }: { params: Promise<{ id: st
       </section>
 
       <PackagePanel projectId={project.id} organisationId={actor.organisationId} canIssue={can(actor.role, "project.write") && !archived} />
+
+      <ScheduleSummaryPanel projectId={project.id} organisationId={actor.organisationId} />
 
       <div className="grid gap-6 lg:grid-cols-3">
         <div className="space-y-6 lg:col-span-2">
