@@ -1,7 +1,6 @@
 "use client";
 
 import Link from "next/link";
-import { signOut } from "next-auth/react";
 import { useEffect, useId, useRef, useState } from "react";
 
 export interface UserMenuProps {
@@ -79,7 +78,10 @@ export function UserMenu({ name, email, roleLabel, organisationName }: UserMenuP
             disabled={signingOut}
             onClick={() => {
               setSigningOut(true);
-              void signOut({ callbackUrl: "/login" });
+              // Loaded on demand: the sign-in library is not needed to draw any page.
+              void import("next-auth/react")
+                .then(({ signOut }) => signOut({ callbackUrl: "/login" }))
+                .catch(() => setSigningOut(false));
             }}
             className="block w-full px-4 py-2.5 text-left text-sm font-medium text-fen-800 hover:bg-fen-50 disabled:opacity-60"
           >

@@ -14,6 +14,8 @@ import { can, type Permission } from "./roles";
  * The one guard. Every page, server action and route handler gets its user here:
  * signed in, still active (checked in the database at every request, so a
  * deactivated user is refused at once), with the role and organisation stored now.
+ * API tokens are the one exception: the route guard resolves them through a cache of a
+ * few seconds, emptied by revocations and role/status changes (see lib/auth/tokens.ts).
  */
 export interface Actor {
   id: number;
@@ -108,7 +110,7 @@ export function guardedRoute<P extends Record<string, string> = Record<string, s
       const authz = req.headers.get("authorization");
       if (authz && /^bearer /i.test(authz)) {
         // Loaded on demand: tokens.ts imports this module, so a static import would be circular.
-        const resolve = bearerResolver ?? (await import("./tokens")).resolveBearer;
+        const resolve = bearerResolver ?? (await import("./tokens")).resolveBearerCached;
         actor = await resolve(authz.slice(7).trim());
         if (!actor) throw unauthenticated("The API token is not valid or was revoked");
       } else {

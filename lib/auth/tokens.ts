@@ -94,7 +94,7 @@ export async function listTokens(actor: Actor): Promise<TokenListItem[]> {
 export async function revokeToken(actor: Actor, id: unknown): Promise<{ id: number; revokedAt: Date }> {
   requireTokenManage(actor);
   const tokenId = parseId(id);
-  return db().transaction(async (tx) => {
+  const revoked = await db().transaction(async (tx) => {
     const t = await lockUserToken(tx, actor.organisationId, actor.id, tokenId);
     if (!t) throw notFound("Token not found");
     if (t.revokedAt) return { id: t.id, revokedAt: t.revokedAt };
@@ -110,21 +110,93 @@ export async function revokeToken(actor: Actor, id: unknown): Promise<{ id: numb
     });
     return { id: t.id, revokedAt: at };
   });
+  // After the commit: a look-up that starts now sees the revocation; one in flight is not stored.
+  forgetCachedBearers();
+  return revoked;
 }
 
-/**
- * The user a bearer token acts as, or null when the token is malformed, unknown,
- * revoked, or its user is deactivated. Records the use (at most once a minute).
- */
-export async function resolveBearer(token: string): Promise<Actor | null> {
-  const t = token.trim();
-  if (!TOKEN_PATTERN.test(t)) return null;
-  const found = await findLiveTokenOwner(hashToken(t));
+/** The user a live token acts as, recording the use (at most once a minute). */
+async function lookupBearer(tokenHash: string): Promise<Actor | null> {
+  const found = await findLiveTokenOwner(tokenHash);
   if (!found) return null;
   const now = new Date();
   const notAfter = new Date(now.getTime() - LAST_USED_RESOLUTION_MS);
   if (!found.lastUsedAt || found.lastUsedAt < notAfter) await touchToken(found.tokenId, now, notAfter);
   return found.user;
+}
+
+/**
+ * The user a bearer token acts as, or null when the token is malformed, unknown,
+ * revoked, or its user is deactivated. Always asks the database; records the use (at
+ * most once a minute).
+ */
+export async function resolveBearer(token: string): Promise<Actor | null> {
+  const t = token.trim();
+  if (!TOKEN_PATTERN.test(t)) return null;
+  return lookupBearer(hashToken(t));
+}
+
+// ── The route guard's short-lived cache of token → actor ───────────────────────────
+//
+// A script calling the JSON API sends the same token many times a second; asking the
+// database each time costs a round trip (and a pool connection) per request. The guard
+// therefore keeps what a token resolved to for TOKEN_CACHE_TTL_MS, in this server process.
+//
+// Staleness it allows, and how it is bounded:
+// - Revoking a token (revokeToken), and changing a user's role or status through the
+//   administration screens (which call forgetCachedBearers), empty the cache at once, so
+//   in a single-process server such a change holds from the very next request, as before.
+// - A change this process does not see (another server process, or SQL run by hand) is
+//   picked up when the entry expires: a revoked token or a deactivated user is refused,
+//   and a new role applies, at most TOKEN_CACHE_TTL_MS later.
+// - Only successful look-ups are kept; an unknown or revoked token always asks the
+//   database. Entries hold no secret (the key is the token's SHA-256) and the cache holds
+//   at most TOKEN_CACHE_MAX entries.
+// `resolveBearer` itself stays uncached for callers that need the database's answer now.
+
+/** How long a resolved token is trusted without asking the database again. */
+export const TOKEN_CACHE_TTL_MS = 3_000;
+const TOKEN_CACHE_MAX = 1_000;
+
+// Kept on globalThis: the bundler gives route handlers and server actions module
+// instances of their own, and a revocation in one must empty the cache the others read.
+interface BearerCache {
+  entries: Map<string, { actor: Actor; until: number }>;
+  /** Bumped by every invalidation, so a look-up that raced with one is not stored. */
+  generation: number;
+}
+const g = globalThis as unknown as { ohmsteadBearerCache?: BearerCache };
+function cache(): BearerCache {
+  g.ohmsteadBearerCache ??= { entries: new Map(), generation: 0 };
+  return g.ohmsteadBearerCache;
+}
+
+/** Drops every cached token → actor entry (after a revocation, role or status change). */
+export function forgetCachedBearers(): void {
+  const c = cache();
+  c.entries.clear();
+  c.generation++;
+}
+
+/** `resolveBearer` for the route guard, through the short-lived cache described above. */
+export async function resolveBearerCached(token: string): Promise<Actor | null> {
+  const t = token.trim();
+  if (!TOKEN_PATTERN.test(t)) return null;
+  const c = cache();
+  const key = hashToken(t);
+  const hit = c.entries.get(key);
+  if (hit && hit.until > Date.now()) return { ...hit.actor };
+  if (hit) c.entries.delete(key);
+  const generation = c.generation;
+  const actor = await lookupBearer(key);
+  if (!actor || generation !== c.generation) return actor;
+  const now = Date.now();
+  if (c.entries.size >= TOKEN_CACHE_MAX) {
+    for (const [k, v] of c.entries) if (v.until <= now) c.entries.delete(k);
+    if (c.entries.size >= TOKEN_CACHE_MAX) c.entries.clear();
+  }
+  c.entries.set(key, { actor: { ...actor }, until: now + TOKEN_CACHE_TTL_MS });
+  return actor;
 }
 
 let installed = false;
@@ -134,7 +206,7 @@ let installed = false;
  */
 export function installBearerResolver(): void {
   if (installed) return;
-  registerBearerResolver(resolveBearer);
+  registerBearerResolver(resolveBearerCached);
   installed = true;
 }
 installBearerResolver();

@@ -4,7 +4,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { listProjects } from "@/db/queries/projects";
 import { requirePageActor } from "@/lib/auth/guard";
 import { can } from "@/lib/auth/roles";
-import { projectListQuerySchema } from "@/lib/validation/project";
+import { projectListQuerySchema, SYSTEM_TYPE_LABELS } from "@/lib/validation/project";
 import { ProjectsTable } from "./projects-table";
 
 export const metadata: Metadata = { title: "Projects" };
@@ -27,7 +27,7 @@ export default async function ProjectsPage() {
           ) : null
         }
       />
-      <ProjectsTable initialQuery={query} initial={initial} canWrite={canWrite} />
+      <ProjectsTable initialQuery={query} initial={initial} canWrite={canWrite} systemTypeLabels={SYSTEM_TYPE_LABELS} />
     </>
   );
 }

@@ -7,7 +7,9 @@ import { DateTime } from "@/components/ui/date-time";
 import { EmptyState } from "@/components/ui/empty-state";
 import { StatusBadge } from "@/components/ui/status-badge";
 import type { ProjectListItem } from "@/db/queries/projects";
-import { SYSTEM_TYPE_LABELS, type ProjectListQuery, type ProjectSort } from "@/lib/validation/project";
+import type { SystemType } from "@/db/schema/projects";
+// Types only: the validation module brings zod and the table definitions, which the list does not need in the browser.
+import type { ProjectListQuery, ProjectSort } from "@/lib/validation/project";
 import { projectListKey } from "./list-key";
 
 interface ListResponse {
@@ -30,8 +32,8 @@ const COLUMNS: { sort: ProjectSort | null; label: string; className?: string }[]
   { sort: "updated", label: "Updated", className: "w-44" },
 ];
 
-function supply(p: ProjectListItem) {
-  return `${p.systemVoltage} V · ${SYSTEM_TYPE_LABELS[p.systemType]}${p.frequency ? ` · ${p.frequency} Hz` : ""}`;
+function supply(p: ProjectListItem, systemTypeLabels: Record<SystemType, string>) {
+  return `${p.systemVoltage} V · ${systemTypeLabels[p.systemType]}${p.frequency ? ` · ${p.frequency} Hz` : ""}`;
 }
 
 /** The value after it has stopped changing for `ms`, so typing does not fetch per keystroke. */
@@ -45,7 +47,18 @@ function useDebounced<T>(value: T, ms: number): T {
 }
 
 /** The project list: search, sort and the archived toggle drive GET /api/v1/projects through SWR. */
-export function ProjectsTable({ initialQuery, initial, canWrite }: { initialQuery: ProjectListQuery; initial: ProjectListItem[]; canWrite: boolean }) {
+export function ProjectsTable({
+  initialQuery,
+  initial,
+  canWrite,
+  systemTypeLabels,
+}: {
+  initialQuery: ProjectListQuery;
+  initial: ProjectListItem[];
+  canWrite: boolean;
+  /** SYSTEM_TYPE_LABELS, handed over by the server page. */
+  systemTypeLabels: Record<SystemType, string>;
+}) {
   const [search, setSearch] = useState(initialQuery.q);
   const [sort, setSort] = useState<ProjectSort>(initialQuery.sort);
   const [dir, setDir] = useState<"asc" | "desc">(initialQuery.dir);
@@ -176,7 +189,7 @@ export function ProjectsTable({ initialQuery, initial, canWrite }: { initialQuer
                   </td>
                   <td>{p.client || <span className="text-fen-400">—</span>}</td>
                   <td className="hidden lg:table-cell">{p.site || <span className="text-fen-400">—</span>}</td>
-                  <td className="hidden whitespace-nowrap md:table-cell">{supply(p)}</td>
+                  <td className="hidden whitespace-nowrap md:table-cell">{supply(p, systemTypeLabels)}</td>
                   <td className="whitespace-nowrap text-fen-600">
                     <DateTime value={p.updatedAt} />
                   </td>

@@ -2,19 +2,14 @@
 
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { signIn } from "next-auth/react";
-import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import { z } from "zod";
 import { InputField } from "@/components/forms/field";
 import { FormAlert } from "@/components/forms/form-alert";
 import { SubmitButton } from "@/components/forms/submit-button";
+import { useSchemaForm } from "@/components/forms/use-schema-form";
 
-const schema = z.object({
-  email: z.string().trim().min(1, "E-mail is required").max(254, "E-mail must be at most 254 characters").pipe(z.email("E-mail must be an address like name@company.example")),
-  password: z.string().min(1, "Password is required").max(200, "Password must be at most 200 characters"),
-});
-type Values = z.input<typeof schema>;
+// Both loaded on demand (first focus, or the first submit): neither is needed to draw the form.
+const loadSchema = () => import("./schema").then((m) => m.loginSchema);
+const loadSignIn = () => import("next-auth/react").then((m) => m.signIn);
 
 /** Only paths on this site: an absolute or protocol-relative URL elsewhere falls back to /projects. */
 function safeDestination(raw: string): string {
@@ -30,19 +25,17 @@ function safeDestination(raw: string): string {
 export function LoginForm({ callbackUrl, defaultEmail }: { callbackUrl: string; defaultEmail: string }) {
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
-  const {
-    register,
-    handleSubmit,
-    formState: { errors, isSubmitting },
-  } = useForm<Values, unknown, z.output<typeof schema>>({ resolver: zodResolver(schema), defaultValues: { email: defaultEmail, password: "" } });
+  const { errors, pending, formProps } = useSchemaForm(loadSchema, { preload: loadSignIn });
+  const unreachable = () => setFormError("The server could not be reached. Check your connection and try again.");
 
-  const onSubmit = handleSubmit(async ({ email, password }) => {
+  const onValid = async ({ email, password }: { email: string; password: string }) => {
     setFormError(null);
-    let res: Awaited<ReturnType<typeof signIn>>;
+    let res;
     try {
+      const signIn = await loadSignIn();
       res = await signIn("credentials", { email, password, redirect: false });
     } catch {
-      setFormError("The server could not be reached. Check your connection and try again.");
+      unreachable();
       return;
     }
     if (!res || res.error || !res.ok) {
@@ -55,14 +48,14 @@ export function LoginForm({ callbackUrl, defaultEmail }: { callbackUrl: string; 
     }
     router.replace(safeDestination(callbackUrl));
     router.refresh();
-  });
+  };
 
   return (
-    <form onSubmit={onSubmit} noValidate className="mt-6 space-y-4">
+    <form {...formProps(onValid, unreachable)} className="mt-6 space-y-4">
       {formError ? <FormAlert>{formError}</FormAlert> : null}
-      <InputField label="E-mail" type="email" autoComplete="username" autoFocus={!defaultEmail} error={errors.email?.message} {...register("email")} />
-      <InputField label="Password" type="password" autoComplete="current-password" autoFocus={Boolean(defaultEmail)} error={errors.password?.message} {...register("password")} />
-      <SubmitButton pending={isSubmitting} pendingLabel="Signing in…" className="w-full">
+      <InputField label="E-mail" name="email" type="email" autoComplete="username" autoFocus={!defaultEmail} defaultValue={defaultEmail} error={errors.email} />
+      <InputField label="Password" name="password" type="password" autoComplete="current-password" autoFocus={Boolean(defaultEmail)} error={errors.password} />
+      <SubmitButton pending={pending} pendingLabel="Signing in…" className="w-full">
         Sign in
       </SubmitButton>
     </form>

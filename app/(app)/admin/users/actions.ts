@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { changeUserRole, inviteUser, revokeInvitation, setUserStatus } from "@/db/queries/users";
 import { guardedAction } from "@/lib/auth/guard";
+import { forgetCachedBearers } from "@/lib/auth/tokens";
 import { changeRoleSchema, inviteSchema, revokeSchema, setStatusSchema } from "./schema";
 
 const PATH = "/admin/users";
@@ -15,12 +16,16 @@ const invite = guardedAction({ permission: "users.manage", schema: inviteSchema 
 
 const changeRole = guardedAction({ permission: "users.manage", schema: changeRoleSchema }, async (input, actor) => {
   const r = await changeUserRole(actor, input.userId, input.role);
+  // The API's token cache must not keep serving the old role.
+  if (r.changed) forgetCachedBearers();
   revalidatePath(PATH);
   return r;
 });
 
 const setStatus = guardedAction({ permission: "users.manage", schema: setStatusSchema }, async (input, actor) => {
   const r = await setUserStatus(actor, input.userId, input.status);
+  // A deactivated user's tokens are refused from the next request on.
+  if (r.changed) forgetCachedBearers();
   revalidatePath(PATH);
   return r;
 });

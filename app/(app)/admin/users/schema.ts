@@ -1,12 +1,9 @@
 import { z } from "zod";
-import type { Role } from "@/db/schema";
 import { choice } from "@/lib/engine/core/schema";
 
-/** Role values for forms; kept here so the browser bundle does not load the database schema. */
-export const ROLE_OPTIONS = ["admin", "lead", "engineer", "viewer"] as const satisfies readonly Role[];
-// Fails to compile if a role is added to the schema but not here.
-const _allRoles: Exclude<Role, (typeof ROLE_OPTIONS)[number]> extends never ? true : never = true;
-void _allRoles;
+import { ROLE_OPTIONS } from "./role-options";
+
+export { ROLE_OPTIONS };
 
 const id = (label: string) => z.coerce.number({ error: `${label} must be a number` }).int(`${label} must be a whole number`).positive(`${label} must be positive`);
 

@@ -4,7 +4,7 @@ import { useId, useState, useTransition } from "react";
 import type { Role, UserStatus } from "@/db/schema";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { changeRoleAction, setUserStatusAction } from "./actions";
-import { ROLE_OPTIONS } from "./schema";
+import { ROLE_OPTIONS } from "./role-options";
 
 /** Role change and (de)activation for one row of the users table. */
 export function UserControls({ user, isSelf }: { user: { id: number; name: string; role: Role; status: UserStatus }; isSelf: boolean }) {
