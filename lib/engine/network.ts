@@ -207,6 +207,68 @@ export interface NetworkResults {
   /** Dead-end nodes peeled off before the solve (they carry no current). */
   deadEndNodes: number;
   isolatedNodes: string[];
+  /**
+   * Present only on a stored result of a large network (see `compactNetworkResult`): every
+   * segment's and node's values as columns, while `segments` keeps only the hottest, the
+   * overloaded and the first dead-end segments in full and `nodes` is empty.
+   */
+  columns?: NetworkResultColumns;
+}
+
+/** Per-segment and per-node values of a large network as columns, 6 significant figures. */
+export interface NetworkResultColumns {
+  segments: { id: string[]; current_A: number[]; loss_W: number[]; temperatureRise_K: (number | null)[]; utilisation: (number | null)[] };
+  nodes: { id: string[]; voltage_V: (number | null)[]; drop_pct: (number | null)[] };
+  /** Segments carrying no current (unloaded dead ends). */
+  deadSegmentCount: number;
+}
+
+/** Above this many segments a stored result keeps its per-segment values as columns. */
+export const NETWORK_FULL_RESULT_LIMIT = 1500;
+/** Segments of each kind (overloaded, dead end) kept in full in a compact result. */
+const COMPACT_KEPT = 40;
+
+const sig6 = (x: number) => Number(x.toPrecision(6));
+const sig6OrNull = (x: number | null | undefined) => (x === null || x === undefined || !Number.isFinite(x) ? null : sig6(x));
+
+/**
+ * The result as stored for a large network: the same headline values, checks, formulas
+ * and warnings; the per-segment and per-node values as columns rounded to six
+ * significant figures (about a seventh of the size of the object form: for 10⁵
+ * segments, ~7 MB instead of ~50 MB), and the hottest, the first overloaded and the
+ * first dead-end segments in full. Smaller networks are returned unchanged.
+ */
+export function compactNetworkResult(result: CalcResult<NetworkResults>, limit = NETWORK_FULL_RESULT_LIMIT): CalcResult<NetworkResults> {
+  const r = result.results;
+  if (r.columns || r.segments.length <= limit) return result;
+  const hot = new Set(r.hottest.map((h) => h.id));
+  const kept: SegmentResult[] = [];
+  let over = 0;
+  let dead = 0;
+  const n = r.segments.length;
+  const seg = { id: new Array<string>(n), current_A: new Array<number>(n), loss_W: new Array<number>(n), temperatureRise_K: new Array<number | null>(n), utilisation: new Array<number | null>(n) };
+  for (let i = 0; i < n; i++) {
+    const s = r.segments[i]!;
+    seg.id[i] = s.id;
+    seg.current_A[i] = sig6(s.current_A);
+    seg.loss_W[i] = sig6(s.loss_W);
+    seg.temperatureRise_K[i] = sig6OrNull(s.temperatureRise_K);
+    seg.utilisation[i] = sig6OrNull(s.utilisation);
+    const isDead = s.current_A === 0 && s.direction === 0;
+    if (isDead) dead++;
+    if (hot.has(s.id)) kept.push(s);
+    else if (isDead && dead <= COMPACT_KEPT) kept.push(s);
+    else if ((s.utilisation ?? 0) > 1 && over++ < COMPACT_KEPT) kept.push(s);
+  }
+  const m = r.nodes.length;
+  const nodes = { id: new Array<string>(m), voltage_V: new Array<number | null>(m), drop_pct: new Array<number | null>(m) };
+  for (let i = 0; i < m; i++) {
+    const v = r.nodes[i]!;
+    nodes.id[i] = v.id;
+    nodes.voltage_V[i] = sig6OrNull(v.voltage_V);
+    nodes.drop_pct[i] = sig6OrNull(v.drop_pct);
+  }
+  return { ...result, results: { ...r, nodes: [], segments: kept, columns: { segments: seg, nodes, deadSegmentCount: dead } } };
 }
 
 // ---------------------------------------------------------------------------------

@@ -33,6 +33,12 @@ export interface SheetKindDef {
   cautioned: boolean;
   /** Starting inputs, SI, from the project. */
   defaults: (p: ProjectBasis) => Record<string, unknown>;
+  /**
+   * Parts of the engine input the form does not hold, derived from what it does (a bus
+   * network's node list from its segments). Applied to the form's SI values before they
+   * are calculated or saved.
+   */
+  complete?: (inputs: Record<string, unknown>) => Record<string, unknown>;
 }
 
 const clamp = (x: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, x));
@@ -58,6 +64,87 @@ function defaultArrangement(p: ProjectBasis) {
  */
 function barLimit(p: ProjectBasis): number {
   return p.standardFamily === "north-american" ? clamp(p.designAmbientC + 65, 60, 150) : clamp(Math.max(105, p.designAmbientC + 50), 60, 150);
+}
+
+/**
+ * The node list of a bus network: every node a segment names, in the order first
+ * named, then supply nodes not on any segment (a supply alone is still a network).
+ * Load nodes are not added: a load on a name no segment reaches is reported by the
+ * engine ("load node … is not in the node list"), which catches a mistyped name.
+ */
+export function networkNodes(inputs: Record<string, unknown>): { id: string }[] {
+  const seen = new Set<string>();
+  const out: { id: string }[] = [];
+  const add = (v: unknown) => {
+    if (typeof v !== "string") return;
+    const id = v.trim();
+    if (id === "" || seen.has(id)) return;
+    seen.add(id);
+    out.push({ id });
+  };
+  const rows = (v: unknown) => (Array.isArray(v) ? (v as unknown[]).filter((x): x is Record<string, unknown> => typeof x === "object" && x !== null) : []);
+  for (const s of rows(inputs.segments)) {
+    add(s.from);
+    add(s.to);
+  }
+  for (const s of rows(inputs.supplies)) add(s.node);
+  return out;
+}
+
+/**
+ * A small panel to start from: an incomer feeding three main-bus sections, a dropper
+ * from each section joint and tap-off cables to the outgoing loads, one spare tap-off
+ * left unloaded (it shows as a branch carrying no current). Copper main bus of
+ * 1 000 mm² (2 × 50 × 10 mm), 240 mm² droppers, 35 and 16 mm² tap-offs (or the nearest
+ * kcmil/AWG sizes for the North-American family); ampacities are typical catalogue
+ * values to be replaced by the engineer's own.
+ */
+function busNetworkDefaults(p: ProjectBasis) {
+  const na = p.standardFamily === "north-american";
+  const dc = p.systemType === "dc";
+  const ft = 0.3048;
+  const len = (metric: number, feet: number) => (na ? Number((feet * ft).toPrecision(6)) : metric);
+  const phaseVoltage = dc || p.systemType === "1ph" ? p.systemVoltage : p.systemVoltage / Math.sqrt(3);
+  const conductors = [
+    { id: "main", materialId: "cu-etp", area_m2: na ? 1.29e-3 : 1e-3, conductorTemperature_C: 90, reactance_ohm_per_m: 1.5e-4, ampacity_A: na ? 2000 : 1600 },
+    { id: "dropper", materialId: "cu-etp", area_m2: na ? 253.4e-6 : 240e-6, conductorTemperature_C: 90, reactance_ohm_per_m: 1.8e-4, ampacity_A: na ? 500 : 520 },
+    { id: "tap-35", materialId: "cu-annealed", area_m2: na ? 33.62e-6 : 35e-6, conductorTemperature_C: 70, reactance_ohm_per_m: 8e-5, ampacity_A: na ? 115 : 125 },
+    { id: "tap-16", materialId: "cu-annealed", area_m2: na ? 13.3e-6 : 16e-6, conductorTemperature_C: 70, reactance_ohm_per_m: 8.5e-5, ampacity_A: na ? 65 : 76 },
+  ];
+  const segments = [
+    { id: "MB-1", from: "INC", to: "J1", conductor: "main", length_m: len(0.6, 2) },
+    { id: "MB-2", from: "J1", to: "J2", conductor: "main", length_m: len(0.8, 2.5) },
+    { id: "MB-3", from: "J2", to: "J3", conductor: "main", length_m: len(0.8, 2.5) },
+    { id: "DR-1", from: "J1", to: "D1", conductor: "dropper", length_m: len(1.2, 4) },
+    { id: "DR-2", from: "J2", to: "D2", conductor: "dropper", length_m: len(1.2, 4) },
+    { id: "DR-3", from: "J3", to: "D3", conductor: "dropper", length_m: len(1.2, 4) },
+    { id: "TO-1", from: "D1", to: "M1", conductor: "tap-35", length_m: len(8, 25) },
+    { id: "TO-2", from: "D1", to: "L1", conductor: "tap-16", length_m: len(12, 40) },
+    { id: "TO-3", from: "D2", to: "M2", conductor: "tap-35", length_m: len(15, 50) },
+    { id: "TO-4", from: "D2", to: "SP1", conductor: "tap-16", length_m: len(3, 10) },
+    { id: "TO-5", from: "D3", to: "M3", conductor: "tap-35", length_m: len(20, 65) },
+    { id: "TO-6", from: "D3", to: "L2", conductor: "tap-16", length_m: len(10, 30) },
+  ];
+  const pf = (x: number) => (dc ? 1 : x);
+  const loads = [
+    { node: "M1", current_A: 80, pf: pf(0.85) },
+    { node: "L1", current_A: 32, pf: pf(0.95) },
+    { node: "M2", current_A: 65, pf: pf(0.85) },
+    { node: "M3", current_A: 90, pf: pf(0.82) },
+    { node: "L2", current_A: 25, pf: pf(1) },
+  ];
+  const inputs: Record<string, unknown> = {
+    mode: dc ? "dc" : "ac",
+    frequency_Hz: dc ? 50 : clamp(p.frequency || 50, 1, 1000),
+    ambient_C: clamp(p.designAmbientC, -40, 80),
+    maxTemperature_C: 90,
+    dropLimit_pct: na ? 3 : 4,
+    conductors,
+    segments,
+    supplies: [{ node: "INC", voltage_V: Number(phaseVoltage.toPrecision(6)), angle_deg: 0 }],
+    loads,
+  };
+  return { ...inputs, nodes: networkNodes(inputs) };
 }
 
 /**
@@ -201,6 +288,16 @@ export const SHEET_KINDS: readonly SheetKindDef[] = [
         { name: "Cable 2", materialId: "cu-annealed", area_m2: 240e-6, length_m: 24, count: 1, conductorTemperature_C: 70, reactance_ohm_per_m: 0.08e-3, acResistanceFactor: 1, ampacityPerConductor_A: 450 },
       ],
     }),
+  },
+  {
+    kind: "bus-network",
+    name: "Bus network",
+    summary: "Currents, voltage drops, losses and temperature rises in a panel's distribution: incomer, main bus, droppers, tap-offs and loads.",
+    tagPrefix: "BN",
+    heavy: true,
+    cautioned: true,
+    defaults: busNetworkDefaults,
+    complete: (inputs) => ({ ...inputs, nodes: networkNodes(inputs) }),
   },
 ];
 

@@ -1,4 +1,5 @@
 import "server-only";
+import { z } from "zod";
 import { db, type Tx } from "@/db/client";
 import type { AuditEvent, SheetStatus } from "@/db/schema";
 import {
@@ -21,12 +22,14 @@ import { audit } from "@/lib/audit";
 import type { Actor } from "@/lib/auth/guard";
 import type { Permission } from "@/lib/auth/roles";
 import { ENGINE_VERSION, runCalc } from "@/lib/engine";
+import type { CalcResult } from "@/lib/engine/core/result";
+import { compactNetworkResult, type NetworkResults } from "@/lib/engine/network";
 import { conflict, forbidden, isDuplicateKey, notFound, validationError } from "@/lib/errors";
 import { canonicalJson, contentHash } from "@/lib/hash";
 import { parseInput, PROJECT_NOT_FOUND, requirePermission, SHEET_NOT_FOUND, STALE_SHEET_MESSAGE } from "./common";
 import { notifyApproved, notifyReturned, notifyReviewRequested, type SheetMailContext } from "./notifications";
 import { revisionLabel } from "./revision-label";
-import { createSheetSchema, saveSheetSchema, transitionSheetSchema } from "./schemas";
+import { createSheetSchema, idField, saveSheetSchema, transitionSheetSchema, versionField } from "./schemas";
 import { editAllowed, TRANSITIONS, transitionAllowed, type TransitionName } from "./workflow";
 
 /**
@@ -92,10 +95,19 @@ interface Computed {
   inputErrors: Record<string, string> | null;
 }
 
+/**
+ * The result as stored: a large bus network keeps its per-segment values as columns
+ * (`compactNetworkResult`), so storing, hashing and reading it back stay within a
+ * second or two; every other result is stored as computed.
+ */
+function storable(kind: string, result: CalcResult<unknown>): CalcResult<unknown> {
+  return kind === "bus-network" ? compactNetworkResult(result as CalcResult<NetworkResults>) : result;
+}
+
 /** Runs the calculation and hashes inputs + results + engine version. */
 function compute(kind: string, inputs: Record<string, unknown>): Computed {
   const outcome = runCalc(kind, inputs);
-  const results = outcome.ok ? asStoredJson(outcome.result as unknown as Record<string, unknown>) : null;
+  const results = outcome.ok ? asStoredJson(storable(kind, outcome.result) as unknown as Record<string, unknown>) : null;
   return {
     results,
     engineVersion: ENGINE_VERSION,
@@ -412,5 +424,100 @@ export async function transitionSheet(actor: Actor, raw: unknown): Promise<Trans
       superseded: superseded.map((r) => r.label),
       notified,
     };
+  });
+}
+
+/** What `importNetwork` stores about the file it was given. */
+export interface NetworkImportSource {
+  fileName: string;
+  format: "csv" | "json";
+  /** Size of the file, bytes. */
+  bytes: number;
+}
+
+/** What `importNetwork` returns: the write, the network's size and the server's solve time. */
+export interface NetworkImportResult extends SheetWriteResult {
+  counts: { nodes: number; segments: number; loads: number; supplies: number };
+  /** Wall time of the engine solve on the server, ms. */
+  solveMs: number;
+}
+
+const importRequestSchema = z.object({ sheetId: idField("Sheet"), version: versionField });
+
+/**
+ * Replaces a bus network sheet's network with an imported one (already read by
+ * lib/sheets/network-import.ts). The same rules as `saveSheet`: the optimistic lock
+ * (409 when stale), the author edits a draft or returned revision in place, an
+ * approved latest revision gets a new draft revision, a revision in review must be
+ * withdrawn first. Unlike a save, the inputs are not limited to the form's size, and
+ * a network the engine cannot solve is refused (400 with the engine's messages) rather
+ * than stored, so an import never replaces a working network with a broken one. The
+ * result is computed here (the authoritative one) with the engine version and content
+ * hash; the audit event `network.imported` records the file, the counts and the solve
+ * time, in the same transaction. Needs `sheet.write`.
+ */
+export async function importNetwork(
+  actor: Actor,
+  raw: { sheetId: unknown; version: unknown; network: Record<string, unknown>; source: NetworkImportSource },
+): Promise<NetworkImportResult> {
+  requirePermission(actor, "sheet.write");
+  const req = parseInput(importRequestSchema, { sheetId: raw.sheetId, version: raw.version });
+  const existing = await findSheet(db(), actor.organisationId, req.sheetId);
+  if (!existing) throw notFound(SHEET_NOT_FOUND);
+  if (existing.kind !== "bus-network") throw validationError({ file: "Only a bus network sheet takes a network file" }, "Only a bus network sheet takes a network file");
+
+  const inputs = asStoredJson(raw.network);
+  const t0 = performance.now();
+  const outcome = runCalc("bus-network", inputs);
+  const solveMs = performance.now() - t0;
+  if (!outcome.ok) throw validationError(outcome.fields, "The imported network cannot be solved; nothing was changed");
+  // The engine's result is plain JSON data already (numbers, strings, arrays, objects;
+  // canonicalJson drops absent fields and writes non-finite numbers as null exactly as
+  // the stored JSON will): a round trip of tens of MB would only cost time.
+  const results = storable("bus-network", outcome.result) as unknown as Record<string, unknown>;
+  const hash = contentHash(inputs, results, ENGINE_VERSION);
+  const list = (k: string) => (Array.isArray(inputs[k]) ? (inputs[k] as unknown[]).length : 0);
+  const counts = { nodes: list("nodes"), segments: list("segments"), loads: list("loads"), supplies: list("supplies") };
+
+  return db().transaction(async (tx) => {
+    const { sheet, version } = await lockVersion(tx, actor, req.sheetId, req.version);
+    const latest = await latestOf(tx, actor, sheet.id);
+    const edit = editAllowed({ status: latest.status, actorId: actor.id, authorId: latest.authorId });
+    if (!edit.ok) throw edit.kind === "status" ? conflict(edit.reason) : forbidden(edit.reason);
+    const details = { file: raw.source, counts, solveMs: Math.round(solveMs), contentHash: hash };
+    const base = { organisationId: actor.organisationId, actorId: actor.id, entityType: "sheet", entityId: sheet.id, event: "network.imported" } as const;
+    const done = (revision: RevisionRef, newRevision: boolean): NetworkImportResult => ({
+      sheetId: sheet.id,
+      projectId: sheet.projectId,
+      version,
+      revision,
+      newRevision,
+      results,
+      inputErrors: null,
+      counts,
+      solveMs,
+    });
+
+    if (edit.mode === "in_place") {
+      await updateRevision(tx, actor.organisationId, latest.id, { status: "draft", inputs, results, engineVersion: ENGINE_VERSION, contentHash: hash });
+      await audit(tx, { ...base, details: { revisionId: latest.id, ordinal: latest.ordinal, label: latest.label, from: latest.status, newRevision: false, ...details } });
+      return done(ref(latest, "draft"), false);
+    }
+    const scheme = await revisionSchemeOf(tx, actor.organisationId);
+    const ordinal = latest.ordinal + 1;
+    const label = revisionLabel(ordinal, scheme);
+    const revisionId = await insertRevision(tx, {
+      organisationId: actor.organisationId,
+      sheetId: sheet.id,
+      ordinal,
+      label,
+      inputs,
+      results,
+      engineVersion: ENGINE_VERSION,
+      contentHash: hash,
+      authorId: actor.id,
+    });
+    await audit(tx, { ...base, details: { revisionId, ordinal, label, basedOn: { revisionId: latest.id, label: latest.label }, newRevision: true, ...details } });
+    return done({ id: revisionId, ordinal, label, status: "draft" }, true);
   });
 }

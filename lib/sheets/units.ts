@@ -115,10 +115,38 @@ export const FIELD_QUANTITIES: Record<string, Record<string, QuantityKind>> = {
     "paths.*.ampacityPerConductor_A": "current",
     "paths.*.maxTemperature_C": "temperature",
   },
+  "bus-network": {
+    ambient_C: "temperature",
+    maxTemperature_C: "temperature",
+    "conductors.*.area_m2": "area",
+    "conductors.*.conductorTemperature_C": "temperature",
+    "conductors.*.reactance_ohm_per_m": "reactance",
+    "conductors.*.ampacity_A": "current",
+    "conductors.*.maxTemperature_C": "temperature",
+    "segments.*.length_m": "length",
+    "segments.*.reactance_ohm_per_m": "reactance",
+    "loads.*.current_A": "current",
+  },
 };
 
 /** Paths whose values are text even when they look like numbers (names, tags, tempers). */
-const TEXT_PATHS = new Set(["temperId", "losses.*.name", "losses.*.sourceSheet", "paths.*.name", "paths.*.temperId"]);
+const TEXT_PATHS = new Set([
+  "temperId",
+  "losses.*.name",
+  "losses.*.sourceSheet",
+  "paths.*.name",
+  "paths.*.temperId",
+  // bus network ids and node names ("1" is a name, not a number)
+  "nodes.*.id",
+  "conductors.*.id",
+  "conductors.*.temperId",
+  "segments.*.id",
+  "segments.*.from",
+  "segments.*.to",
+  "segments.*.conductor",
+  "supplies.*.node",
+  "loads.*.node",
+]);
 
 /** "losses.3.name" → "losses.*.name". */
 export function pathPattern(path: string): string {

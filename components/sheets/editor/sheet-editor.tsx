@@ -31,8 +31,9 @@ export function SheetEditor(props: SheetEditorProps) {
   const [mod, setMod] = useState<KindModule | null>(null);
   const [loadError, setLoadError] = useState<string | null>(null);
   const load = KIND_MODULES[props.sheet.kind];
+  const summaryOnly = props.summary !== undefined;
   useEffect(() => {
-    if (!load) return;
+    if (!load || summaryOnly) return;
     let live = true;
     load().then(
       (m) => live && setMod(m),
@@ -41,7 +42,9 @@ export function SheetEditor(props: SheetEditorProps) {
     return () => {
       live = false;
     };
-  }, [load]);
+  }, [load, summaryOnly]);
+  // A network too large for the form: the page's summary in place of form and live results.
+  if (summaryOnly) return <LoadedEditor {...props} mod={null} />;
   if (!load) return <FormAlert>This sheet kind ({props.sheet.kind}) has no form in this version of Ohmstead; its stored inputs and results stay in the database.</FormAlert>;
   if (loadError) return <FormAlert>{loadError}</FormAlert>;
   if (!mod)
@@ -55,7 +58,7 @@ export function SheetEditor(props: SheetEditorProps) {
 
 type Banner = { tone: "error" | "success" | "info"; text: string; fields?: string[] } | null;
 
-function LoadedEditor({ sheet, revision, inputs, savedResult, unitSystem, viewer, nextLabel, projectArchived, takenTags, lossSources, mod }: SheetEditorProps & { mod: KindModule }) {
+function LoadedEditor({ sheet, revision, inputs, savedResult, unitSystem, viewer, nextLabel, projectArchived, takenTags, lossSources, summary, mod }: SheetEditorProps & { mod: KindModule | null }) {
   const router = useRouter();
   const def = sheetKind(sheet.kind);
   const heavy = def?.heavy ?? false;
@@ -79,7 +82,7 @@ function LoadedEditor({ sheet, revision, inputs, savedResult, unitSystem, viewer
   const editable = inPlace || (canRevise && revising);
 
   const defaultValues = useMemo(() => toFormValues(sheet.kind, inputs, unitSystem), [sheet.kind, inputs, unitSystem]);
-  const resolver = useMemo(() => engineResolver(mod.schema, sheet.kind, unitSystem), [mod.schema, sheet.kind, unitSystem]);
+  const resolver = useMemo(() => (mod ? engineResolver(mod.schema, sheet.kind, unitSystem) : undefined), [mod, sheet.kind, unitSystem]);
   const form = useForm({ defaultValues, resolver, mode: "onChange" });
   const { control, getValues, reset, trigger, formState } = form;
 
@@ -89,10 +92,17 @@ function LoadedEditor({ sheet, revision, inputs, savedResult, unitSystem, viewer
   }, [savedResult, trigger]);
 
   const values = useWatch({ control });
-  const engineInputs = useMemo(() => toEngineInputs(sheet.kind, values as Record<string, unknown>, unitSystem), [values, sheet.kind, unitSystem]);
+  const toEngine = useCallback(
+    (v: Record<string, unknown>) => {
+      const si = toEngineInputs(sheet.kind, v, unitSystem);
+      return def?.complete ? def.complete(si) : si;
+    },
+    [def, sheet.kind, unitSystem],
+  );
+  const engineInputs = useMemo(() => toEngine(values as Record<string, unknown>), [values, toEngine]);
   const inputsJson = useMemo(() => JSON.stringify(engineInputs), [engineInputs]);
-  const runHere = useMemo(() => (mod.run ? (i: Record<string, unknown>) => safeRun(mod.schema, mod.run as (x: unknown) => never, i) : undefined), [mod]);
-  const live = useLiveCalc({ kind: sheet.kind, heavy, inputsJson, runHere });
+  const runHere = useMemo(() => (mod?.run ? (i: Record<string, unknown>) => safeRun(mod.schema, mod.run as (x: unknown) => never, i) : undefined), [mod]);
+  const live = useLiveCalc({ kind: sheet.kind, heavy: heavy && mod !== null, inputsJson, runHere });
 
   const dirty = formState.isDirty || title.trim() !== sheet.title;
 
@@ -107,7 +117,7 @@ function LoadedEditor({ sheet, revision, inputs, savedResult, unitSystem, viewer
 
   async function save(): Promise<number | null> {
     const saved = getValues();
-    const res = await saveSheetAction({ sheetId: sheet.id, version: versionNow(), inputs: toEngineInputs(sheet.kind, saved, unitSystem), title: title.trim() || sheet.title });
+    const res = await saveSheetAction({ sheetId: sheet.id, version: versionNow(), inputs: toEngine(saved), title: title.trim() || sheet.title });
     if (!res.ok) {
       fail(res.error);
       return null;
@@ -132,9 +142,9 @@ function LoadedEditor({ sheet, revision, inputs, savedResult, unitSystem, viewer
     });
 
   const actions: WorkflowActions = {};
-  if (inPlace) actions.save = { label: "Save", onClick: () => act(async () => void ((await save()) !== null && router.refresh())) };
-  if (canRevise && !revising) actions.startRevision = { label: `Start revision ${nextLabel}`, onClick: () => setRevising(true) };
-  if (canRevise && revising) actions.save = { label: `Save as revision ${nextLabel}`, onClick: () => act(async () => void ((await save()) !== null && router.refresh())) };
+  if (inPlace && mod) actions.save = { label: "Save", onClick: () => act(async () => void ((await save()) !== null && router.refresh())) };
+  if (canRevise && !revising && mod) actions.startRevision = { label: `Start revision ${nextLabel}`, onClick: () => setRevising(true) };
+  if (canRevise && revising && mod) actions.save = { label: `Save as revision ${nextLabel}`, onClick: () => act(async () => void ((await save()) !== null && router.refresh())) };
   if (open && viewer.canSubmit && isAuthor && (revision.status === "draft" || revision.status === "returned"))
     actions.submit = () =>
       act(async () => {
@@ -209,73 +219,78 @@ function LoadedEditor({ sheet, revision, inputs, savedResult, unitSystem, viewer
         </FormAlert>
       ) : null}
 
-      <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
-        <form
-          noValidate
-          aria-label={`${def?.name ?? sheet.kind} inputs`}
-          onSubmit={(e) => {
-            e.preventDefault();
-            actions.save?.onClick();
-          }}
-        >
-          <fieldset disabled={!editable} className="space-y-4 disabled:[&_input]:bg-fen-50 disabled:[&_select]:bg-fen-50 disabled:[&_input]:text-fen-700">
-            <div className="rounded-lg border border-fen-200 bg-white p-4">
-              <label htmlFor="sheet-title" className="field-label">
-                Title
-              </label>
-              <input id="sheet-title" className="field-input" value={title} maxLength={200} onChange={(e) => setTitle(e.target.value)} />
-            </div>
-            <FormProvider {...form}>
-              <SheetFormSettingsProvider value={{ kind: sheet.kind, unitSystem, readOnly: !editable }}>
-                <mod.Form lossSources={lossSources} />
-              </SheetFormSettingsProvider>
-            </FormProvider>
-          </fieldset>
-        </form>
+      {summary !== undefined || !mod ? (
+        summary
+      ) : (
+        <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+          <form
+            noValidate
+            className="min-w-0"
+            aria-label={`${def?.name ?? sheet.kind} inputs`}
+            onSubmit={(e) => {
+              e.preventDefault();
+              actions.save?.onClick();
+            }}
+          >
+            <fieldset disabled={!editable} className="min-w-0 space-y-4 disabled:[&_input]:bg-fen-50 disabled:[&_select]:bg-fen-50 disabled:[&_input]:text-fen-700">
+              <div className="rounded-lg border border-fen-200 bg-white p-4">
+                <label htmlFor="sheet-title" className="field-label">
+                  Title
+                </label>
+                <input id="sheet-title" className="field-input" value={title} maxLength={200} onChange={(e) => setTitle(e.target.value)} />
+              </div>
+              <FormProvider {...form}>
+                <SheetFormSettingsProvider value={{ kind: sheet.kind, unitSystem, readOnly: !editable }}>
+                  <mod.Form lossSources={lossSources} />
+                </SheetFormSettingsProvider>
+              </FormProvider>
+            </fieldset>
+          </form>
 
-        <section aria-label="Results" className="space-y-3 xl:sticky xl:top-20 xl:self-start">
-          <div className="flex items-center justify-between">
-            <h2 className="text-sm font-semibold uppercase tracking-wider text-fen-600">Results</h2>
-            <ResultSourceBadge showLive={showLive} busy={live.busy} ms={live.ms} />
-          </div>
-          {showLive && liveProblems.length > 0 ? (
-            <div role="status" className="rounded-md border border-fen-200 bg-white px-3 py-2 text-sm text-fen-700">
-              <p className="font-semibold">No result until these inputs are fixed:</p>
-              <ul className="mt-1 list-disc pl-5 text-signal-700">
-                {liveProblems.map((m, i) => (
-                  <li key={i}>{m}</li>
-                ))}
-              </ul>
+          <section aria-label="Results" className="space-y-3 xl:sticky xl:top-20 xl:self-start">
+            <div className="flex items-center justify-between">
+              <h2 className="text-sm font-semibold uppercase tracking-wider text-fen-600">Results</h2>
+              <ResultSourceBadge showLive={showLive} busy={live.busy} ms={live.ms} />
             </div>
-          ) : null}
-          {result ? (
-            <ResultsPanel result={result} unitSystem={unitSystem} cautioned={def?.cautioned ?? true}>
-              <KindResults
-                result={result}
-                inputs={showLive ? engineInputs : inputs}
-                unitSystem={unitSystem}
-                density={live.density}
-                onPick={viewer.canWrite && !projectArchived ? (c) => setPick(c) : undefined}
+            {showLive && liveProblems.length > 0 ? (
+              <div role="status" className="rounded-md border border-fen-200 bg-white px-3 py-2 text-sm text-fen-700">
+                <p className="font-semibold">No result until these inputs are fixed:</p>
+                <ul className="mt-1 list-disc pl-5 text-signal-700">
+                  {liveProblems.map((m, i) => (
+                    <li key={i}>{m}</li>
+                  ))}
+                </ul>
+              </div>
+            ) : null}
+            {result ? (
+              <ResultsPanel result={result} unitSystem={unitSystem} cautioned={def?.cautioned ?? true}>
+                <KindResults
+                  result={result}
+                  inputs={showLive ? engineInputs : inputs}
+                  unitSystem={unitSystem}
+                  density={live.density}
+                  onPick={viewer.canWrite && !projectArchived ? (c) => setPick(c) : undefined}
+                />
+              </ResultsPanel>
+            ) : !liveProblems.length ? (
+              <p className="panel p-4 text-sm text-fen-500" role="status">
+                Computing…
+              </p>
+            ) : null}
+            {pick ? (
+              <PickArrangement
+                candidate={pick}
+                sizingInputs={engineInputs}
+                projectId={sheet.projectId}
+                sizingTag={sheet.tag}
+                takenTags={takenTags}
+                create={createSheetAction}
+                onClose={() => setPick(null)}
               />
-            </ResultsPanel>
-          ) : !liveProblems.length ? (
-            <p className="panel p-4 text-sm text-fen-500" role="status">
-              Computing…
-            </p>
-          ) : null}
-          {pick ? (
-            <PickArrangement
-              candidate={pick}
-              sizingInputs={engineInputs}
-              projectId={sheet.projectId}
-              sizingTag={sheet.tag}
-              takenTags={takenTags}
-              create={createSheetAction}
-              onClose={() => setPick(null)}
-            />
-          ) : null}
-        </section>
-      </div>
+            ) : null}
+          </section>
+        </div>
+      )}
     </div>
   );
 }

@@ -1,3 +1,4 @@
+import type { ReactNode } from "react";
 import type { SheetStatus } from "@/db/schema/sheets";
 import type { Role } from "@/db/schema";
 import type { CalcResult } from "@/lib/engine/core/result";
@@ -50,4 +51,9 @@ export interface SheetEditorProps {
   /** Tags already used in the project (for a sheet created from a sizing pick). */
   takenTags: readonly string[];
   lossSources: readonly LossSource[];
+  /**
+   * Shown instead of the form and the live results (a bus network too large for the
+   * form: its stored server result); the workflow bar stays. `inputs` may then be empty.
+   */
+  summary?: ReactNode;
 }

@@ -11,6 +11,7 @@ export const KIND_MODULES: Record<string, () => Promise<KindModule>> = {
   "fault-withstand": () => import("./fault-withstand").then((m) => m.faultWithstand),
   "enclosure-heat": () => import("./enclosure-heat").then((m) => m.enclosureHeat),
   "parallel-sharing": () => import("./parallel-sharing").then((m) => m.parallelSharingKind),
+  "bus-network": () => import("./bus-network").then((m) => m.busNetworkKind),
 };
 
 export function hasSheetForm(kind: string): boolean {

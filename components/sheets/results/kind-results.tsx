@@ -5,12 +5,14 @@ import type { BusbarSizingResults, SizingCandidate } from "@/lib/engine/busbar-s
 import type { CalcResult } from "@/lib/engine/core/result";
 import type { EnclosureHeatResults } from "@/lib/engine/enclosure-heat";
 import type { FilamentDensity } from "@/lib/engine/filament";
+import type { NetworkResults } from "@/lib/engine/network";
 import type { ParallelSharingResults } from "@/lib/engine/parallel";
 import type { FaultWithstandResults } from "@/lib/engine/short-circuit";
 import type { VoltageDropResults } from "@/lib/engine/voltage-drop";
 import type { UnitSystem } from "@/lib/sheets/units";
 import { BusbarRatingKeyResults } from "./busbar-rating";
 import { BusbarSizingKeyResults } from "./busbar-sizing";
+import { BusNetworkKeyResults } from "./bus-network";
 import { EnclosureHeatKeyResults } from "./enclosure-heat";
 import { FaultWithstandKeyResults } from "./fault-withstand";
 import { ParallelSharingKeyResults } from "./parallel-sharing";
@@ -43,6 +45,8 @@ export function KindResults({
       return <EnclosureHeatKeyResults results={result.results as EnclosureHeatResults} unitSystem={unitSystem} />;
     case "parallel-sharing":
       return <ParallelSharingKeyResults results={result.results as ParallelSharingResults} inputs={inputs} unitSystem={unitSystem} />;
+    case "bus-network":
+      return <BusNetworkKeyResults results={result.results as NetworkResults} inputs={inputs} unitSystem={unitSystem} />;
     default:
       return null;
   }

@@ -13,6 +13,10 @@ const EVENT_TEXT: Partial<Record<SheetHistoryEntry["event"], string>> = {
 
 function describe(e: SheetHistoryEntry): string {
   if (e.transition === "withdraw") return "withdrew from review";
+  if (e.event === "network.imported") {
+    const file = e.details.file as { fileName?: unknown } | undefined;
+    return typeof file?.fileName === "string" ? `imported the network file “${file.fileName}”` : "imported a network file";
+  }
   return EVENT_TEXT[e.event] ?? e.event.replace(/^sheet\./, "");
 }
 

@@ -11,10 +11,14 @@ import { can } from "@/lib/auth/roles";
 import type { CalcResult } from "@/lib/engine/core/result";
 import { sheetKindName } from "@/lib/sheets/kinds";
 import { revisionLabel } from "@/lib/sheets/revision-label";
+import { FORM_SEGMENT_LIMIT, segmentCount } from "@/lib/sheets/network-import";
+import { EDITABLE_STATUSES } from "@/lib/sheets/workflow";
 import { getRevision, listProjectSheets, sheetHistory } from "@/lib/sheets/service";
 import { SheetHistory } from "./history";
 import { loadSheetOr404, or404 } from "./load";
 import { lossSourcesFor } from "./loss-sources";
+import { ImportNetworkForm } from "./import-network-form";
+import { LargeNetworkSummary } from "./large-network";
 
 export const metadata: Metadata = { title: "Sheet" };
 
@@ -35,6 +39,27 @@ export default async function SheetPage({ params, searchParams }: { params: Prom
     sheet.kind === "enclosure-heat" && isLatest ? lossSourcesFor(actor, sheet.projectId, sheet.id) : Promise.resolve([]),
   ]);
   const base = `/projects/${project.id}/sheets/${sheet.id}`;
+
+  // Bus networks: a file import beside the form; a network too large for the form is shown as a summary of its stored result.
+  const network = sheet.kind === "bus-network";
+  const large = network && segmentCount(shown.inputs) > FORM_SEGMENT_LIMIT;
+  const canImport =
+    isLatest &&
+    !sheet.projectArchived &&
+    can(actor.role, "sheet.write") &&
+    (shown.status === "approved" || (EDITABLE_STATUSES.includes(shown.status) && shown.authorId === actor.id));
+  const importForm = network ? (
+    <ImportNetworkForm
+      projectId={project.id}
+      sheetId={sheet.id}
+      version={sheet.version}
+      canImport={canImport}
+      downloadHref={`${base}/network${isLatest ? "" : `?rev=${shown.ordinal}`}`}
+      replacesUnsaved={!large}
+    />
+  ) : null;
+  // An import replaces the form's contents: the editor starts afresh after one.
+  const imports = network ? history.filter((h) => h.event === "network.imported").length : 0;
 
   return (
     <>
@@ -84,7 +109,7 @@ export default async function SheetPage({ params, searchParams }: { params: Prom
       ) : null}
 
       <SheetEditor
-        key={`${shown.ordinal}-${isLatest}`}
+        key={`${shown.ordinal}-${isLatest}-${imports}`}
         sheet={{ id: sheet.id, projectId: sheet.projectId, kind: sheet.kind, tag: sheet.tag, title: sheet.title, version: sheet.version }}
         revision={{
           ordinal: shown.ordinal,
@@ -96,8 +121,8 @@ export default async function SheetPage({ params, searchParams }: { params: Prom
           reviewComment: shown.reviewComment,
           isLatest,
         }}
-        inputs={shown.inputs}
-        savedResult={(shown.results as unknown as CalcResult<unknown> | null) ?? null}
+        inputs={large ? {} : shown.inputs}
+        savedResult={large ? null : ((shown.results as unknown as CalcResult<unknown> | null) ?? null)}
         unitSystem={project.unitSystem}
         viewer={{
           id: actor.id,
@@ -110,7 +135,20 @@ export default async function SheetPage({ params, searchParams }: { params: Prom
         projectArchived={sheet.projectArchived}
         takenTags={projectSheets.map((s) => s.tag)}
         lossSources={lossSources}
+        summary={
+          large ? (
+            <LargeNetworkSummary
+              inputs={shown.inputs}
+              result={(shown.results as unknown as CalcResult<unknown> | null) ?? null}
+              revisionId={shown.id}
+              history={history}
+              unitSystem={project.unitSystem}
+              importForm={importForm}
+            />
+          ) : undefined
+        }
       />
+      {network && !large ? <div className="mt-6">{importForm}</div> : null}
 
       <div className="mt-8">
         <SheetHistory entries={history} />
