@@ -3,7 +3,7 @@
 import os from "node:os";
 
 const parts = process.argv.slice(2).filter((a) => a !== "--");
-const all = ["voltage-drop", "busbar", "resistance", "network", "api", "first-load", "live-calc", "pdf"];
+const all = ["voltage-drop", "busbar", "resistance", "network", "network-server", "api", "first-load", "live-calc", "pdf", "schedule"];
 const chosen = parts.length ? parts : all;
 
 console.log(`Ohmstead bench — ${new Date().toISOString()} — node ${process.version}, ${os.cpus().length} cores (${os.cpus()[0]?.model ?? "?"}), ${(os.totalmem() / 2 ** 30).toFixed(1)} GiB`);

@@ -51,7 +51,7 @@ start() {
   rm -f "$SOCK" "$PIDFILE"
   nohup "$(mariadbd_bin)" --no-defaults --datadir="$DATA/data" --user=root --bind-address=127.0.0.1 --port="$PORT" \
     --socket="$SOCK" --pid-file="$PIDFILE" --log-error="$LOG" --skip-name-resolve --default-time-zone=+00:00 \
-    --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci --innodb-log-file-size=8M \
+    --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci --innodb-log-file-size=256M --innodb-buffer-pool-size=256M \
     --max-connections=300 --max-allowed-packet=256M >"$DATA/mariadbd.out" 2>&1 &
   local waited=0
   until running; do

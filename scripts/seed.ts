@@ -1,5 +1,6 @@
-// Demo data: an invented panel-building company with one user per role, three projects, and
-// calculation sheets on the first project in each review state (approved, in review, draft).
+// Demo data: an invented panel-building company with one user per role, three projects,
+// calculation sheets on the first project in each review state (approved, in review, draft),
+// that project's cable schedule and the organisation's (illustrative) ampacity table.
 // Usage: npm run db:seed   (idempotent: does nothing when the demo organisation exists)
 import { pathToFileURL } from "node:url";
 import { eq } from "drizzle-orm";
@@ -11,6 +12,8 @@ import { runCalc, ENGINE_VERSION } from "../lib/engine";
 import { contentHash } from "../lib/hash";
 import { defaultInputs, type ProjectBasis } from "../lib/sheets/kinds";
 import { hashPassword } from "../lib/auth/password";
+import { seedDemoAmpacityTable } from "./demo/seed-ampacity";
+import { seedDemoSchedule } from "./demo/seed-schedule";
 import { loadEnvFile } from "./load-env";
 
 export const DEMO_ORGANISATION = { name: "Wrenfield Panelcraft", slug: "wrenfield-panelcraft" } as const;
@@ -102,6 +105,7 @@ export async function seedDemo(database: Db): Promise<SeedResult> {
       userIds.set(u.role, row!.id);
     }
     const leadId = userIds.get("lead")!;
+    await seedDemoAmpacityTable(tx, orgId, userIds.get("admin")!);
     for (const [index, p] of DEMO_PROJECTS.entries()) {
       const [row] = await tx
         .insert(projects)
@@ -118,6 +122,7 @@ export async function seedDemo(database: Db): Promise<SeedResult> {
           standardFamily: p.standardFamily,
         };
         await seedDemoSheets(tx, orgId, row!.id, basis, { engineer: userIds.get("engineer")!, lead: leadId });
+        await seedDemoSchedule(tx, { organisationId: orgId, projectId: row!.id, userId: userIds.get("engineer")! }, p);
       }
       await audit(tx, {
         organisationId: orgId,
@@ -139,6 +144,7 @@ export const DEMO_SHEETS: readonly { kind: string; tag: string; title: string; s
   { kind: "fault-withstand", tag: "FW-01", title: "Main busbar short-circuit withstand, 50 kA 1 s", status: "approved", tweak: {} },
   { kind: "voltage-drop", tag: "VD-01", title: "Feeder to loading-bay distribution board DB-L1", status: "in_review", tweak: {} },
   { kind: "enclosure-heat", tag: "EH-01", title: "Incomer section heat budget", status: "draft", tweak: {} },
+  { kind: "bus-network", tag: "BN-01", title: "Main distribution board MDB-1, incomer to tap-offs", status: "draft", tweak: {} },
 ];
 
 async function seedDemoSheets(tx: Tx, orgId: number, projectId: number, basis: ProjectBasis, who: { engineer: number; lead: number }) {

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { count, eq } from "drizzle-orm";
 import { closeDb, db } from "@/db/client";
-import { auditEvents, organisations, projects, sheetRevisions, sheets, users } from "@/db/schema";
+import { ampacityTables, auditEvents, cableSchedules, organisations, projects, sheetRevisions, sheets, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import { toProjectFormValues } from "@/lib/validation/project";
 import { ENGINE_VERSION } from "@/lib/engine";
@@ -10,7 +10,9 @@ import { DEMO_SHEETS, DEMO_USERS, seedDemo } from "../../scripts/seed";
 import { resetDb } from "../support/db";
 
 async function counts() {
-  const n = async (t: typeof organisations | typeof users | typeof projects | typeof auditEvents | typeof sheets | typeof sheetRevisions) =>
+  const n = async (
+    t: typeof organisations | typeof users | typeof projects | typeof auditEvents | typeof sheets | typeof sheetRevisions | typeof ampacityTables | typeof cableSchedules,
+  ) =>
     (await db().select({ n: count() }).from(t))[0]!.n;
   return {
     organisations: await n(organisations),
@@ -19,6 +21,8 @@ async function counts() {
     sheets: await n(sheets),
     revisions: await n(sheetRevisions),
     audit: await n(auditEvents),
+    ampacityTables: await n(ampacityTables),
+    schedules: await n(cableSchedules),
   };
 }
 
@@ -30,12 +34,12 @@ describe("demo seed", () => {
     await closeDb();
   });
 
-  it("creates one organisation, one user per role, three projects and four sheets, then does nothing the second time", async () => {
+  it("creates one organisation, one user per role, three projects, five sheets, a cable schedule and an ampacity table, then does nothing the second time", async () => {
     const first = await seedDemo(db());
     expect(first.created).toBe(true);
     const after = await counts();
-    // Audit: 3 projects created; 4 sheets created, 3 submitted, 2 approved.
-    expect(after).toEqual({ organisations: 1, users: 4, projects: 3, sheets: 4, revisions: 4, audit: 12 });
+    // Audit: 3 projects created; 5 sheets created, 3 submitted, 2 approved; 1 table uploaded; 1 schedule uploaded.
+    expect(after).toEqual({ organisations: 1, users: 4, projects: 3, sheets: 5, revisions: 5, audit: 15, ampacityTables: 1, schedules: 1 });
 
     const second = await seedDemo(db());
     expect(second.created).toBe(false);

@@ -114,7 +114,7 @@ async function startMariaDb(work: string, logs: string) {
     "--default-time-zone=+00:00",
     "--character-set-server=utf8mb4",
     "--collation-server=utf8mb4_unicode_ci",
-    "--innodb-log-file-size=8M",
+    "--innodb-log-file-size=128M",
     "--innodb-buffer-pool-size=64M",
     "--max-allowed-packet=256M",
   ];
