@@ -1,17 +1,19 @@
 import "server-only";
-import { and, desc, eq, gt, inArray } from "drizzle-orm";
+import { and, desc, eq, gt, inArray, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { organisations, sheetRevisions, sheets } from "@/db/schema";
-import { normaliseCode, verificationCode } from "@/lib/pdf/verification-code";
+import { codeDigestPrefix, normaliseCode, verificationCode } from "@/lib/pdf/verification-code";
 
 /**
  * The public check behind an approval stamp. This is the one query that is not
  * scoped to an organisation: the code itself is the key, and the answer names only the
  * organisation, the sheet tag and revision labels — no project, inputs or results.
  *
- * Codes are not stored: every revision that ever carried a stamp (approved, or
- * approved and later superseded) is hashed again and compared. That is a scan of four
- * short columns of stamped revisions only, cheap at the sizes Ohmstead keeps.
+ * Codes are not stored. The database hashes each stamped revision (approved, or
+ * approved and later superseded) the way the code was made and keeps those whose digest
+ * starts with the code's first 48 bits, so only a match (if any) comes back to be
+ * checked in full here. That is still a scan, done inside the database; an indexed
+ * lookup needs the digest prefix stored (a generated, indexed column).
  */
 export type VerificationState = "approved-current" | "superseded" | "unknown";
 
@@ -28,11 +30,13 @@ export interface Verification {
 export async function lookupVerification(rawCode: string): Promise<Verification> {
   const code = normaliseCode(rawCode);
   if (!code) return { state: "unknown" };
-  const stamped = await db()
+  // The same text as verificationCode hashes: "<content hash>:<sheet id>:<ordinal>".
+  const digest = sql`sha2(concat(${sheetRevisions.contentHash}, ':', ${sheetRevisions.sheetId}, ':', ${sheetRevisions.ordinal}), 256)`;
+  const candidates = await db()
     .select({ id: sheetRevisions.id, sheetId: sheetRevisions.sheetId, ordinal: sheetRevisions.ordinal, contentHash: sheetRevisions.contentHash })
     .from(sheetRevisions)
-    .where(inArray(sheetRevisions.status, ["approved", "superseded"]));
-  const hit = stamped.find((r) => verificationCode(r.contentHash, r.sheetId, r.ordinal) === code);
+    .where(and(inArray(sheetRevisions.status, ["approved", "superseded"]), sql`left(${digest}, 12) = ${codeDigestPrefix(code)}`));
+  const hit = candidates.find((r) => verificationCode(r.contentHash, r.sheetId, r.ordinal) === code);
   if (!hit) return { state: "unknown" };
 
   const [row] = await db()

@@ -1,6 +1,10 @@
-import { renderTree } from "./render-core.mjs";
+import { loadFonts, renderTree } from "./render-core.mjs";
 import { sheetDocument } from "./sheet-pages";
 import type { SheetPdfData } from "./types";
+
+// The fonts are read as soon as a route that renders PDFs is loaded, while its first
+// request is still reading the sheet; a failure shows in that request's rendering.
+loadFonts().catch(() => {});
 
 /** One sheet's PDF, rendered in this thread (a sheet is a few pages: well under the time of a request). */
 export function renderSheetPdf(d: SheetPdfData): Promise<Buffer> {

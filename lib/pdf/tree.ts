@@ -1,7 +1,7 @@
 /**
  * The PDF description tree: react-pdf primitives as plain data, so a document can be
  * rendered in this thread or handed to a worker thread (render-core.mjs turns it into
- * React elements). Styles are react-pdf style objects.
+ * react-pdf's element instances). Styles are react-pdf style objects.
  */
 export type PdfNodeType =
   | "Document"

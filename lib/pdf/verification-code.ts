@@ -31,6 +31,19 @@ export function verificationCode(contentHash: string, sheetId: number, ordinal: 
   return base32(digest).slice(0, CODE_LENGTH);
 }
 
+/**
+ * The first 12 hex digits (48 of the code's 50 bits) of the digest a normalised code was
+ * cut from: what the database compares against its own SHA-2 of a revision, before the
+ * full code is checked here.
+ */
+export function codeDigestPrefix(code: string): string {
+  let bits = "";
+  for (const ch of code) bits += ALPHABET.indexOf(ch).toString(2).padStart(5, "0");
+  let hex = "";
+  for (let i = 0; i + 4 <= 48; i += 4) hex += parseInt(bits.slice(i, i + 4), 2).toString(16);
+  return hex;
+}
+
 /** A code as typed or scanned: case and spaces forgiven; null when it cannot be a code. */
 export function normaliseCode(raw: string): string | null {
   const c = raw.replace(/[\s-]/g, "").toUpperCase();

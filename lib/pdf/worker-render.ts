@@ -5,7 +5,8 @@ import type { PdfNode } from "./tree";
 /**
  * Renders PDF trees in one long-lived worker thread (lib/pdf/render-worker.mjs, plain
  * ESM that needs no TypeScript loader), so the main thread stays free for other
- * requests while a package of many sheets is laid out, and fonts are parsed once.
+ * requests while a package of many sheets is laid out, and fonts are parsed once (the
+ * worker starts reading them as it starts).
  * Jobs queue in the worker one after another. The entry is located from the working
  * directory (the app's root, where `next start` runs). The worker is unref'd: it never
  * keeps the process alive; if it dies, the next job starts a new one.
@@ -38,7 +39,7 @@ function getWorker(root: string): Worker {
   if (worker) return worker;
   // Constructed indirectly: the bundler rewrites a literal `new Worker(…)` into its own
   // module loading, but this entry is a plain ESM file loaded by Node at run time.
-  const w = Reflect.construct(Worker, [workerEntry(root)]) as Worker;
+  const w = Reflect.construct(Worker, [workerEntry(root), { workerData: { root } }]) as Worker;
   w.unref();
   w.on("message", (m: Reply) => {
     const p = pending.get(m.id);

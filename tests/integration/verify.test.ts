@@ -5,7 +5,8 @@ import { CALC_EXAMPLES } from "@/app/api/v1/calc/examples";
 import { verificationView } from "@/app/verify/[code]/data";
 import { lookupVerification } from "@/db/queries/verification";
 import type { Actor } from "@/lib/auth/guard";
-import { base32, normaliseCode, verificationCode } from "@/lib/pdf/verification-code";
+import { createHash } from "node:crypto";
+import { base32, codeDigestPrefix, normaliseCode, verificationCode } from "@/lib/pdf/verification-code";
 import { getSheet, saveSheet, transitionSheet } from "@/lib/sheets/service";
 import { createSheet } from "@/lib/sheets/service";
 import { actorOf } from "../support/api";
@@ -63,6 +64,13 @@ describe("verification code", () => {
     expect(base32(Buffer.from("foobar"))).toBe("MZXW6YTBOI");
     expect(normaliseCode(` ${a.toLowerCase().slice(0, 5)}-${a.slice(5)} `)).toBe(a);
     expect(normaliseCode("not a code")).toBeNull();
+  });
+
+  it("gives back the first 48 bits of the digest it was cut from, for the database to match", () => {
+    for (const [hash, sheetId, ordinal] of [["ab".repeat(32), 1, 0], ["0f".repeat(32), 4711, 3], ["e3b0c44298fc1c149afbf4c8996fb92427ae41e4649b934ca495991b7852b855", 90210, 12]] as const) {
+      const digest = createHash("sha256").update(`${hash}:${sheetId}:${ordinal}`).digest("hex");
+      expect(codeDigestPrefix(verificationCode(hash, sheetId, ordinal))).toBe(digest.slice(0, 12));
+    }
   });
 });
 
