@@ -1,7 +1,7 @@
 import type { z } from "zod";
 import type { Actor } from "@/lib/auth/guard";
 import { can, type Permission } from "@/lib/auth/roles";
-import { fieldErrors } from "@/lib/engine/core/schema";
+import { fieldErrors } from "@/lib/engine/core/field-errors";
 import { forbidden, validationError } from "@/lib/errors";
 
 /** Shown when the version a client opened is no longer the sheet's version (409). */

@@ -1,7 +1,7 @@
 import type { z } from "zod";
 import type { CalcResult } from "@/lib/engine/core/result";
 import { EngineError } from "@/lib/engine/core/result";
-import { fieldErrors } from "@/lib/engine/core/schema";
+import { fieldErrors } from "@/lib/engine/core/field-errors";
 
 /** Outcome of a live run: the result, or field messages keyed by input path. */
 export type LiveOutcome = { ok: true; result: CalcResult<unknown> } | { ok: false; fields: Record<string, string> };

@@ -10,13 +10,17 @@ import type { ParallelSharingResults } from "@/lib/engine/parallel";
 import type { FaultWithstandResults } from "@/lib/engine/short-circuit";
 import type { VoltageDropResults } from "@/lib/engine/voltage-drop";
 import type { UnitSystem } from "@/lib/sheets/units";
-import { BusbarRatingKeyResults } from "./busbar-rating";
-import { BusbarSizingKeyResults } from "./busbar-sizing";
-import { BusNetworkKeyResults } from "./bus-network";
-import { EnclosureHeatKeyResults } from "./enclosure-heat";
-import { FaultWithstandKeyResults } from "./fault-withstand";
-import { ParallelSharingKeyResults } from "./parallel-sharing";
-import { VoltageDropKeyResults } from "./voltage-drop";
+import dynamic from "next/dynamic";
+
+// One chunk per kind: a sheet's page loads only its own kind's results and pictures.
+const loading = () => <p className="py-6 text-sm text-fen-600">Drawing the results…</p>;
+const BusbarRatingKeyResults = dynamic(() => import("./busbar-rating").then((m) => m.BusbarRatingKeyResults), { loading });
+const BusbarSizingKeyResults = dynamic(() => import("./busbar-sizing").then((m) => m.BusbarSizingKeyResults), { loading });
+const BusNetworkKeyResults = dynamic(() => import("./bus-network").then((m) => m.BusNetworkKeyResults), { loading });
+const EnclosureHeatKeyResults = dynamic(() => import("./enclosure-heat").then((m) => m.EnclosureHeatKeyResults), { loading });
+const FaultWithstandKeyResults = dynamic(() => import("./fault-withstand").then((m) => m.FaultWithstandKeyResults), { loading });
+const ParallelSharingKeyResults = dynamic(() => import("./parallel-sharing").then((m) => m.ParallelSharingKeyResults), { loading });
+const VoltageDropKeyResults = dynamic(() => import("./voltage-drop").then((m) => m.VoltageDropKeyResults), { loading });
 
 /** The key results (and pictures) of a result, by its kind. */
 export function KindResults({

@@ -33,12 +33,4 @@ export function choice<const T extends readonly [string, ...string[]]>(label: st
   return z.enum(values, { error: () => `${label} must be one of: ${values.join(", ")}` });
 }
 
-/** Flattens zod issues into { "path.to.field": "message" }. */
-export function fieldErrors(error: z.ZodError): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.map(String).join(".") || "_";
-    if (!(key in out)) out[key] = issue.message;
-  }
-  return out;
-}
+export { fieldErrors } from "./field-errors";

@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { BusNetworkSummaryResults } from "@/components/sheets/results/bus-network";
+import { BusNetworkSummaryResults } from "@/components/sheets/results/bus-network-tables";
 import { summaryOfNetworkResults } from "@/components/sheets/results/network-summary";
 import { ResultsPanel } from "@/components/sheets/results/results-panel";
 import type { CalcResult } from "@/lib/engine/core/result";
