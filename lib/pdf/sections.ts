@@ -3,6 +3,7 @@ import type { CalcResult } from "@/lib/engine/core/result";
 import { sig } from "@/lib/engine/format";
 import { displayValue, toFormValues, unitLabel } from "@/lib/sheets/units";
 import { mathText } from "./math-text";
+import { networkInputsSection } from "./network-inputs";
 import { h, text, view, type PdfNode } from "./tree";
 import { colour, font, s } from "./styles";
 
@@ -52,6 +53,7 @@ export function ampacityTableLine(snapshot: unknown): string | null {
 
 /** Inputs in the project's units (converted at the edge, as the form shows them). */
 export function inputsSection(kind: string, inputs: Record<string, unknown>, system: UnitSystem): PdfNode[] {
+  if (kind === "bus-network") return [heading("Inputs"), ...networkInputsSection(inputs, system)];
   const rows: { path: string; value: string }[] = [];
   const { ampacityFromTable, ...rest } = inputs;
   const tableLine = ampacityTableLine(ampacityFromTable);

@@ -1,8 +1,10 @@
 import type { BusbarRatingResults } from "@/lib/engine/busbar-thermal";
+import type { NetworkResults } from "@/lib/engine/network";
 import type { ParallelSharingResults } from "@/lib/engine/parallel";
 import type { VoltageDropResults } from "@/lib/engine/voltage-drop";
 import { CAUTION, draftWatermark, footer, titleBlock } from "./chrome";
 import { arrangementOf, crossSectionDrawing, pathSharesDrawing, temperatureCurveDrawing, voltageProfileDrawing } from "./drawings";
+import { networkDrawing } from "./network-drawing";
 import { heading, inputsSection, intermediatesSection, methodSection, resultsSection, warningsSection } from "./sections";
 import { approvalStamp } from "./stamp";
 import { h, text, view, type PdfNode } from "./tree";
@@ -42,6 +44,10 @@ function drawingsFor(d: SheetPdfData): PdfNode[] {
   }
   if (d.sheet.kind === "parallel-sharing" && r && Array.isArray(r.paths) && Array.isArray(r.contingencies)) {
     out.push(pathSharesDrawing(r as unknown as ParallelSharingResults, inputs));
+  }
+  if (d.sheet.kind === "bus-network" && r && Array.isArray(r.segments) && !r.columns) {
+    const drawing = networkDrawing(inputs, r as unknown as NetworkResults, units);
+    if (drawing) out.push(drawing);
   }
   return out.length ? [heading(out.length > 1 ? "Drawings" : "Drawing"), ...out] : [];
 }
