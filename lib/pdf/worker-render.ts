@@ -1,6 +1,7 @@
 import path from "node:path";
 import { Worker } from "node:worker_threads";
-import type { PdfNode } from "./tree";
+import { font } from "./styles";
+import { h, type PdfNode } from "./tree";
 
 /**
  * Renders PDF trees in one long-lived worker thread (lib/pdf/render-worker.mjs, plain
@@ -69,4 +70,26 @@ export async function stopPdfWorker(): Promise<void> {
   const w = worker;
   worker = null;
   if (w) await w.terminate();
+}
+
+/**
+ * Starts the worker and lays out one small page in each font weight, so the first
+ * package after a server start does not also pay for loading react-pdf, parsing the
+ * fonts and compiling the layout code (measured: the first package took about twice as
+ * long as the next ones). Failures are logged only: the next real job starts afresh.
+ */
+export async function warmPdfWorker(root = process.cwd()): Promise<void> {
+  const line = (style: Record<string, unknown>) => h("Text", { style }, "Ohmstead warm-up 0123456789 Ω·m² °C");
+  const doc = h(
+    "Document",
+    { title: "warm-up" },
+    h(
+      "Page",
+      { size: "A4", style: { fontFamily: font.sans, fontSize: 9, padding: 36 } },
+      [400, 500, 600, 700].map((fontWeight) => line({ fontWeight })),
+      line({ fontFamily: font.mono }),
+      line({ fontFamily: font.mono, fontWeight: 700 }),
+    ),
+  );
+  await renderInWorker(doc, root);
 }

@@ -146,6 +146,12 @@ const TEXT_PATHS = new Set([
   "segments.*.conductor",
   "supplies.*.node",
   "loads.*.node",
+  // an organisation ampacity table snapshot on a feeder sheet (codes such as "1" or "E")
+  "ampacityFromTable.installation",
+  "ampacityFromTable.table.name",
+  "ampacityFromTable.table.source",
+  "ampacityFromTable.table.rows.*.label",
+  "ampacityFromTable.table.rows.*.installation",
 ]);
 
 /** "losses.3.name" → "losses.*.name". */
