@@ -11,6 +11,7 @@
  * Nothing is saved. The editor waits LIVE_DEBOUNCE_MS after the last keystroke before
  * it computes, on purpose, so that much of every figure is the debounce, not work.
  */
+import { sparePanel } from "./network-server";
 import type { Page } from "playwright-core";
 import { LIVE_DEBOUNCE_MS } from "../components/sheets/editor/use-live-calc";
 import { prepareBenchActors } from "./support/actors";
@@ -69,9 +70,9 @@ async function installProbe(page: Page) {
   });
 }
 
-async function measure(page: Page, url: string): Promise<{ samples: Sample[]; value: string }> {
+async function measure(page: Page, url: string, path = "current_A"): Promise<{ samples: Sample[]; value: string }> {
   await page.goto(url);
-  const field = page.locator('input[data-path="current_A"]');
+  const field = page.locator(`input[data-path="${path}"]`);
   await field.waitFor({ state: "visible", timeout: 60_000 });
   await page.locator('[data-testid="result-source"]').waitFor({ timeout: 60_000 });
   if (await field.isDisabled()) throw new Error(`the current field of ${url} is read-only for the bench engineer`);
@@ -107,8 +108,11 @@ export async function run(): Promise<void> {
   let browser: BenchBrowser | undefined;
   try {
     server = await startNextServer();
-    const kinds = ["busbar-rating", "voltage-drop"] as const;
-    const { projectId, sheets } = await ensureBenchSheets(server.baseURL, actors.token, actors.engineer.id, kinds);
+    const kinds = ["busbar-rating", "voltage-drop", "bus-network"] as const;
+    // A bus network of about 300 segments (18 bus sections with droppers and tap-offs).
+    const network = sparePanel(300, "ac") as unknown as Record<string, unknown>;
+    const segments = (network.segments as unknown[]).length;
+    const { projectId, sheets } = await ensureBenchSheets(server.baseURL, actors.token, actors.engineer.id, kinds, { "bus-network": network });
     browser = await launchBrowser(server.baseURL);
     const ctx = await browser.newContext();
     const signInPage = await ctx.newPage();
@@ -119,12 +123,12 @@ export async function run(): Promise<void> {
     for (const kind of kinds) {
       const page = await ctx.newPage();
       try {
-        const { samples } = await measure(page, `/projects/${projectId}/sheets/${sheets[kind]}`);
+        const { samples } = await measure(page, `/projects/${projectId}/sheets/${sheets[kind]}`, kind === "bus-network" ? "loads.0.current_A" : "current_A");
         const dom = samples.map((s) => s.dom);
         const paint = samples.map((s) => s.paint);
         const calc = samples.map((s) => s.calc).filter((c): c is number => c !== null);
         rows.push([
-          `${kind}${kind === "busbar-rating" ? " (worker)" : " (in page)"}`,
+          kind === "bus-network" ? `bus-network, ${segments} segments (worker)` : `${kind}${kind === "busbar-rating" ? " (worker)" : " (in page)"}`,
           String(samples.length),
           f(quantile(dom, 0.5)),
           f(quantile(dom, 0.95)),

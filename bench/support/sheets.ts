@@ -45,7 +45,14 @@ export interface BenchSheets {
  * user (so the editor opens editable for that user). A sheet that is no longer an
  * editable draft of that user is left alone and a new one is added.
  */
-export async function ensureBenchSheets(baseURL: string, token: string, authorId: number, kinds: readonly string[]): Promise<BenchSheets> {
+export async function ensureBenchSheets(
+  baseURL: string,
+  token: string,
+  authorId: number,
+  kinds: readonly string[],
+  /** Inputs (SI) to start a kind from instead of the project's defaults. */
+  inputsFor: Record<string, Record<string, unknown>> = {},
+): Promise<BenchSheets> {
   const found = await api<{ projects: { id: number; code: string }[] }>(baseURL, token, "GET", `/api/v1/projects?q=${encodeURIComponent(BENCH_PROJECT_CODE)}`);
   let projectId = found.projects.find((p) => p.code === BENCH_PROJECT_CODE)?.id;
   if (projectId === undefined) {
@@ -83,7 +90,7 @@ export async function ensureBenchSheets(baseURL: string, token: string, authorId
       kind,
       tag: `${def.tagPrefix}-${String(n).padStart(2, "0")}`,
       title: `${def.name} (bench)`,
-      inputs: def.defaults(BASIS),
+      inputs: inputsFor[kind] ?? def.defaults(BASIS),
     });
     out[kind] = made.sheet.id;
   }
