@@ -120,7 +120,16 @@ export interface IssuedPackage {
 export async function storePackage(
   actor: Actor,
   projectId: number,
-  f: { filename: string; data: Buffer; label: string; sheetCount: number; includesDrafts: boolean; sheets: string[] },
+  f: {
+    filename: string;
+    data: Buffer;
+    label: string;
+    sheetCount: number;
+    includesDrafts: boolean;
+    sheets: string[];
+    /** The cable schedule printed in the package, if the project has one. */
+    schedule?: { id: number; filename: string; fileSha256: string; resultsHash: string } | null;
+  },
 ): Promise<{ uploadId: number; sha256: string }> {
   return db().transaction(async (tx) => {
     const up = await insertUpload(tx, actor, { kind: "package", filename: f.filename, contentType: "application/pdf", data: f.data });
@@ -130,7 +139,16 @@ export async function storePackage(
       event: "package.issued",
       entityType: "project",
       entityId: projectId,
-      details: { uploadId: up.id, sha256: up.sha256, label: f.label, sheetCount: f.sheetCount, includesDrafts: f.includesDrafts, sheets: f.sheets, sizeBytes: f.data.length },
+      details: {
+        uploadId: up.id,
+        sha256: up.sha256,
+        label: f.label,
+        sheetCount: f.sheetCount,
+        includesDrafts: f.includesDrafts,
+        sheets: f.sheets,
+        schedule: f.schedule ?? null,
+        sizeBytes: f.data.length,
+      },
     });
     return { uploadId: up.id, sha256: up.sha256 };
   });

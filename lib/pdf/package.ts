@@ -78,6 +78,7 @@ export async function issuePackage(actor: Actor, rawProjectId: unknown, opts: { 
     sheetCount: sheets.length,
     includesDrafts: info.includesDrafts,
     sheets: sheets.map((d) => `${d.sheet.tag} rev ${d.revision.label}`),
+    schedule: schedule ? { id: schedule.id, filename: schedule.filename, fileSha256: schedule.fileSha256, resultsHash: schedule.resultsHash } : null,
   });
   return { uploadId: stored.uploadId, sha256: stored.sha256, filename, label, sheetCount: sheets.length };
 }

@@ -264,5 +264,11 @@ describe("calculation package", () => {
     // After the sheet, before the basis page.
     expect(text.indexOf("Feeder to the inlet screen APPROVED")).toBeLessThan(text.indexOf("File SHA-256"));
     expect(text.lastIndexOf("File SHA-256")).toBeLessThan(text.lastIndexOf("Basis of calculation and cautions"));
+    // The package's audit event names the schedule it printed.
+    const [event] = await db()
+      .select({ details: auditEvents.details })
+      .from(auditEvents)
+      .where(and(eq(auditEvents.event, "package.issued"), eq(auditEvents.entityId, projectId)));
+    expect(event!.details.schedule).toEqual({ id: s!.id, filename: s!.filename, fileSha256: s!.fileSha256, resultsHash: s!.resultsHash });
   }, 90_000);
 });
