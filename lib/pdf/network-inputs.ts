@@ -1,4 +1,5 @@
 import type { UnitSystem } from "@/db/schema/projects";
+import { MATERIALS } from "@/lib/engine/materials";
 import { toFormValues, unitLabel } from "@/lib/sheets/units";
 import { h, text, view, type PdfNode } from "./tree";
 import { s } from "./styles";
@@ -60,14 +61,14 @@ export function networkInputsSection(inputs: Record<string, unknown>, system: Un
       "Conductors",
       [
         { key: "id", title: "Id" },
-        { key: "materialId", title: "Material", width: 80 },
+        { key: "materialId", title: "Material", width: 110 },
         { key: "area_m2", title: "Section", width: 70, path: "conductors.*.area_m2" },
         { key: "count", title: "In parallel", width: 50 },
         { key: "conductorTemperature_C", title: "Temp.", width: 55, path: "conductors.*.conductorTemperature_C" },
         { key: "reactance_ohm_per_m", title: "Reactance", width: 70, path: "conductors.*.reactance_ohm_per_m" },
         { key: "ampacity_A", title: "Ampacity", width: 60, path: "conductors.*.ampacity_A" },
       ],
-      list(v.conductors),
+      list(v.conductors).map((c) => ({ ...c, count: c.count ?? 1, materialId: MATERIALS.find((m) => m.id === c.materialId)?.name ?? c.materialId })),
       system,
     ),
     ...grid(
