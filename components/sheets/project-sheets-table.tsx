@@ -16,6 +16,7 @@ import type { SheetStatus } from "@/db/schema/sheets";
 import { DateTime } from "@/components/ui/date-time";
 import { SheetStatusBadge, STATUS_LABELS } from "./editor/status";
 import { sheetHref, type SheetRowJson } from "./sheet-row";
+import { SortableTableHead } from "@/components/ui/sortable-table-head";
 
 const col = createColumnHelper<SheetRowJson>();
 
@@ -130,25 +131,7 @@ export function ProjectSheetsTable({ rows, showProject = false, caption }: { row
       <div className="overflow-x-auto">
         <table className="data-table">
           {caption ? <caption className="sr-only">{caption}</caption> : null}
-          <thead>
-            {table.getHeaderGroups().map((hg) => (
-              <tr key={hg.id}>
-                {hg.headers.map((h) => {
-                  const sorted = h.column.getIsSorted();
-                  return (
-                    <th key={h.id} aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
-                      <button type="button" className="inline-flex items-center gap-1 uppercase" onClick={h.column.getToggleSortingHandler()}>
-                        {flexRender(h.column.columnDef.header, h.getContext())}
-                        <span aria-hidden="true" className="text-fen-400">
-                          {sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}
-                        </span>
-                      </button>
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
+          <SortableTableHead table={table} />
           <tbody>
             {shown.length === 0 ? (
               <tr>

@@ -5,48 +5,17 @@ import { plain } from "../format-text";
 import { networkInk } from "../network-layout";
 import type { NetworkPathRow, NetworkPathSeries } from "../network-path-series";
 import { ink } from "../palette";
-import { axisLabel, axisLine, axisTick, gridProps, tooltipStyle } from "./chart-style";
-
-interface DotProps {
-  cx?: number;
-  cy?: number;
-  index?: number;
-  payload?: NetworkPathRow;
-}
+import { namedPointDot } from "./named-point-dot";
+import { gridProps, numericAxis, tooltipStyle } from "./chart-style";
 
 /** Recharts body of NetworkPathVoltage; loaded on demand. */
 export function NetworkPathChart({ series: s, height }: { series: NetworkPathSeries; height: number }) {
-  const dot = ({ cx, cy, index, payload }: DotProps) =>
-    payload?.node && cx !== undefined && cy !== undefined ? (
-      <circle key={`d${index}`} cx={cx} cy={cy} r={3.5} fill={ink.paper} stroke={ink.series} strokeWidth={2} />
-    ) : (
-      <g key={`d${index}`} />
-    );
+  const dot = namedPointDot<NetworkPathRow>((p) => Boolean(p?.node));
   return (
     <LineChart responsive data={s.rows} style={{ width: "100%", height }} margin={{ top: 22, right: 28, bottom: 22, left: 14 }}>
       <CartesianGrid {...gridProps} />
-      <XAxis
-        dataKey="distance"
-        type="number"
-        domain={s.xDomain}
-        ticks={s.xTicks}
-        tick={axisTick}
-        axisLine={axisLine}
-        tickLine={axisLine}
-        tickFormatter={(v: number) => plain(v, 4)}
-        label={axisLabel(`Distance from the supply (${s.distUnit})`, "x")}
-      />
-      <YAxis
-        type="number"
-        domain={s.yDomain}
-        ticks={s.yTicks}
-        tick={axisTick}
-        axisLine={axisLine}
-        tickLine={axisLine}
-        width={66}
-        tickFormatter={(v: number) => plain(v, 6)}
-        label={axisLabel("Voltage (V)", "y")}
-      />
+      <XAxis dataKey="distance" {...numericAxis(s.xDomain, s.xTicks, 4, `Distance from the supply (${s.distUnit})`, "x")} />
+      <YAxis width={66} {...numericAxis(s.yDomain, s.yTicks, 6, "Voltage (V)", "y")} />
       <Tooltip
         {...tooltipStyle}
         labelFormatter={(v, payload) => {

@@ -2,10 +2,10 @@
 
 import { CartesianGrid, Line, LineChart, ReferenceDot, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
 import { fixed } from "@/lib/engine/format";
-import { amps, plain } from "../format-text";
+import { amps } from "../format-text";
 import { ink } from "../palette";
 import type { TemperatureSeries } from "../series";
-import { axisLabel, axisLine, axisTick, gridProps, tooltipStyle } from "./chart-style";
+import { gridProps, numericAxis, tooltipStyle } from "./chart-style";
 
 /** Recharts body of TemperatureCurve; loaded on demand. */
 export function TemperatureChart({ series: s, height }: { series: TemperatureSeries; height: number }) {
@@ -13,28 +13,8 @@ export function TemperatureChart({ series: s, height }: { series: TemperatureSer
   return (
     <LineChart responsive data={s.data} style={{ width: "100%", height }} margin={{ top: 18, right: 24, bottom: 22, left: 14 }}>
       <CartesianGrid {...gridProps} />
-      <XAxis
-        dataKey="current"
-        type="number"
-        domain={s.xDomain}
-        ticks={s.xTicks}
-        tick={axisTick}
-        axisLine={axisLine}
-        tickLine={axisLine}
-        tickFormatter={(v: number) => plain(v, 4)}
-        label={axisLabel("Current (A)", "x")}
-      />
-      <YAxis
-        type="number"
-        domain={s.yDomain}
-        ticks={s.yTicks}
-        tick={axisTick}
-        axisLine={axisLine}
-        tickLine={axisLine}
-        width={58}
-        tickFormatter={(v: number) => plain(v, 4)}
-        label={axisLabel(`Temperature (${s.tempUnit})`, "y")}
-      />
+      <XAxis dataKey="current" {...numericAxis(s.xDomain, s.xTicks, 4, "Current (A)", "x")} />
+      <YAxis width={58} {...numericAxis(s.yDomain, s.yTicks, 4, `Temperature (${s.tempUnit})`, "y")} />
       <Tooltip
         {...tooltipStyle}
         labelFormatter={(v) => amps(Number(v))}

@@ -5,51 +5,20 @@ import { fixed } from "@/lib/engine/format";
 import { plain } from "../format-text";
 import { ink } from "../palette";
 import type { VoltageSeries } from "../series";
-import { axisLabel, axisLine, axisTick, gridProps, tooltipStyle } from "./chart-style";
-
-interface DotProps {
-  cx?: number;
-  cy?: number;
-  index?: number;
-  payload?: { label?: string };
-}
+import { namedPointDot } from "./named-point-dot";
+import { gridProps, numericAxis, tooltipStyle } from "./chart-style";
 
 /** Recharts body of VoltageProfile; loaded on demand. */
 export function VoltageChart({ series: s, height }: { series: VoltageSeries; height: number }) {
   const end = s.receiving;
   const endColour = s.withinLimit === false ? ink.fail : s.withinLimit ? ink.pass : ink.accent;
   // Only named points (boards, junctions) get a dot; the line itself carries the rest.
-  const dot = ({ cx, cy, index, payload }: DotProps) =>
-    payload?.label && cx !== undefined && cy !== undefined ? (
-      <circle key={`d${index}`} cx={cx} cy={cy} r={3.5} fill={ink.paper} stroke={ink.series} strokeWidth={2} />
-    ) : (
-      <g key={`d${index}`} />
-    );
+  const dot = namedPointDot<{ label?: string }>((p) => Boolean(p?.label));
   return (
     <LineChart responsive data={s.data} style={{ width: "100%", height }} margin={{ top: 22, right: 28, bottom: 22, left: 14 }}>
       <CartesianGrid {...gridProps} />
-      <XAxis
-        dataKey="distance"
-        type="number"
-        domain={s.xDomain}
-        ticks={s.xTicks}
-        tick={axisTick}
-        axisLine={axisLine}
-        tickLine={axisLine}
-        tickFormatter={(v: number) => plain(v, 4)}
-        label={axisLabel(`Distance (${s.distUnit})`, "x")}
-      />
-      <YAxis
-        type="number"
-        domain={s.yDomain}
-        ticks={s.yTicks}
-        tick={axisTick}
-        axisLine={axisLine}
-        tickLine={axisLine}
-        width={62}
-        tickFormatter={(v: number) => plain(v, 5)}
-        label={axisLabel("Voltage (V)", "y")}
-      />
+      <XAxis dataKey="distance" {...numericAxis(s.xDomain, s.xTicks, 4, `Distance (${s.distUnit})`, "x")} />
+      <YAxis width={62} {...numericAxis(s.yDomain, s.yTicks, 5, "Voltage (V)", "y")} />
       <Tooltip
         {...tooltipStyle}
         labelFormatter={(v) => `${plain(Number(v), 4)} ${s.distUnit}`}

@@ -15,6 +15,7 @@ import { useId, useMemo, useState } from "react";
 import type { UnitSystem } from "@/db/schema/projects";
 import { cToTemp, mToLength } from "@/lib/engine/units";
 import type { ScheduleTableRow } from "./table-row";
+import { SortableTableHead } from "@/components/ui/sortable-table-head";
 
 const col = createColumnHelper<ScheduleTableRow>();
 
@@ -194,25 +195,7 @@ export function ScheduleResultsTable({ rows, unitSystem }: { rows: readonly Sche
       <div className="overflow-x-auto">
         <table className="data-table">
           <caption className="sr-only">Computed rows of the cable schedule</caption>
-          <thead>
-            {table.getHeaderGroups().map((hg) => (
-              <tr key={hg.id}>
-                {hg.headers.map((h) => {
-                  const sorted = h.column.getIsSorted();
-                  return (
-                    <th key={h.id} aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"} className="whitespace-nowrap">
-                      <button type="button" className="inline-flex items-center gap-1 uppercase" onClick={h.column.getToggleSortingHandler()}>
-                        {flexRender(h.column.columnDef.header, h.getContext())}
-                        <span aria-hidden="true" className="text-fen-400">
-                          {sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}
-                        </span>
-                      </button>
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
+          <SortableTableHead table={table} thClassName="whitespace-nowrap" />
           <tbody>
             {shown.length === 0 ? (
               <tr>
